@@ -1,0 +1,1 @@
+ALTER TABLE `work_order_history` ADD `photo_id` char(36);

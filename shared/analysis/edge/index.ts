@@ -1,0 +1,6 @@
+export { findEdges, type FoundEdge, type FindEdgesOptions } from './findEdges'
+export { downsampleBox } from './downsample'
+export { edgeMap, type EdgeMap } from './edgeMap'
+export { findSegments, type Segment, type SegmentSet } from './segments'
+export { segmentRoi, type RoiLimits, type RoiProposal } from './segmentRoi'
+export { verifyRoi, type VerifiedEdge, type VerifyLimits } from './verifyRoi'

@@ -1,0 +1,6 @@
+export type { FocusOptions, FocusRegion } from './region'
+export { laplacianVariance } from './laplacianVariance'
+export { tenengrad, type SumOrMeanOptions } from './tenengrad'
+export { brenner, type BrennerOptions } from './brenner'
+export { normalisedVariance, type NormalisedVarianceOptions } from './normalisedVariance'
+export { focusMeasures, type FocusMeasures } from './focusMeasures'

@@ -1,0 +1,1 @@
+export { analyzeFrame, type AnalyzeFrameOptions, type AnalysisStage } from './analyzeFrame'

@@ -1,0 +1,13 @@
+export type {
+  Severity,
+  TaskId,
+  Verdict,
+  VerdictEdge,
+  VerdictInput,
+  VerdictReason,
+  VerdictThresholds,
+  VerdictValue,
+} from './types'
+export { COMMON_THRESHOLDS, TASK_DEFAULTS, thresholdsFor, type TaskDefaults } from './tasks'
+export { evaluateVerdict, type VerdictOptions } from './evaluate'
+export { hazeEvidence, type HazeEvidence } from './haze'

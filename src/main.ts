@@ -1,0 +1,15 @@
+// Boot: Vue, Pinia, the router and the service worker. Nothing else happens here.
+import { createApp } from 'vue'
+import { createPinia } from 'pinia'
+import App from './App.vue'
+import { registerServiceWorker } from './pwa/registerServiceWorker'
+import { router } from './router'
+import { usePwaStore } from './stores/pwa'
+import './styles/fonts.css'
+import './styles/base.css'
+
+const app = createApp(App)
+app.use(createPinia())
+app.use(router)
+registerServiceWorker(usePwaStore())
+app.mount('#app')

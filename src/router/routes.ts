@@ -1,0 +1,109 @@
+// The route table. Views load lazily; `roles` lists who may open a route (absent: every
+// signed-in user); `public` routes need no session.
+import type { RouteRecordRaw } from 'vue-router'
+import { useAuthStore } from '@/stores/auth'
+import type { Role } from './roles'
+
+declare module 'vue-router' {
+  interface RouteMeta {
+    /** Shown in the nav bar and the document title. */
+    title?: string
+    roles?: readonly Role[]
+    public?: boolean
+    /** Show a back arrow in the nav bar. */
+    back?: boolean
+    /** No nav bar and no tab bar (sign-in). */
+    bare?: boolean
+    /** Tabs to mark active, first one the role has, when the path is under none of them. */
+    tabs?: readonly string[]
+  }
+}
+
+export const routes: RouteRecordRaw[] = [
+  { path: '/', name: 'start', redirect: () => useAuthStore().home },
+  {
+    path: '/sign-in',
+    name: 'sign-in',
+    component: () => import('@/views/SignInView.vue'),
+    meta: { title: 'Sign in', public: true, bare: true },
+  },
+  {
+    path: '/rounds',
+    name: 'rounds',
+    component: () => import('@/views/RoundsView.vue'),
+    meta: { title: 'Rounds', roles: ['inspector'] },
+  },
+  {
+    path: '/sync',
+    name: 'sync',
+    component: () => import('@/views/SyncView.vue'),
+    meta: { title: 'Sync', roles: ['inspector'] },
+  },
+  {
+    path: '/tools',
+    name: 'tools',
+    component: () => import('@/views/ToolsView.vue'),
+    meta: { title: 'Tools', roles: ['inspector'] },
+  },
+  {
+    path: '/fleet',
+    name: 'fleet',
+    component: () => import('@/views/FleetView.vue'),
+    meta: { title: 'Fleet', roles: ['supervisor', 'admin'] },
+  },
+  {
+    path: '/work-orders',
+    name: 'work-orders',
+    component: () => import('@/views/WorkOrdersView.vue'),
+    meta: { title: 'Work orders', roles: ['supervisor', 'maintenance'] },
+  },
+  {
+    path: '/cameras',
+    name: 'cameras',
+    component: () => import('@/views/CamerasView.vue'),
+    meta: { title: 'Cameras', roles: ['supervisor', 'admin'] },
+  },
+  {
+    path: '/cameras/:id(\\d+)',
+    name: 'camera',
+    component: () => import('@/views/CameraView.vue'),
+    props: (route) => ({ id: Number(route.params.id) }),
+    meta: { title: 'Camera', back: true, tabs: ['/rounds', '/cameras', '/fleet', '/work-orders'] },
+  },
+  {
+    path: '/tools/targets',
+    name: 'targets',
+    component: () => import('@/views/TargetsView.vue'),
+    meta: { title: 'Targets', back: true, tabs: ['/tools', '/me'] },
+  },
+  {
+    path: '/tools/lens',
+    name: 'lens',
+    component: () => import('@/views/LensView.vue'),
+    meta: { title: 'Lens calculator', back: true, tabs: ['/tools', '/me'] },
+  },
+  {
+    path: '/setup',
+    name: 'setup',
+    component: () => import('@/views/SetupView.vue'),
+    meta: { title: 'Setup', roles: ['admin'] },
+  },
+  {
+    path: '/me',
+    name: 'me',
+    component: () => import('@/views/MeView.vue'),
+    meta: { title: 'Me' },
+  },
+  {
+    path: '/safety',
+    name: 'safety',
+    component: () => import('@/views/SafetyView.vue'),
+    meta: { title: 'Safety notes', back: true, public: true, tabs: ['/tools', '/me'] },
+  },
+  {
+    path: '/:pathMatch(.*)*',
+    name: 'not-found',
+    component: () => import('@/views/NotFoundView.vue'),
+    meta: { title: 'Not found', public: true },
+  },
+]
