@@ -35,6 +35,8 @@ export default defineConfig({
         navigateFallback: '/index.html',
         navigateFallbackDenylist: [/^\/api\//],
         maximumFileSizeToCacheInBytes: 5 * 1024 * 1024,
+        // Background Sync wake-up for the outbox (the push runs in the page; see the file).
+        importScripts: ['/sw-sync.js'],
       },
     }),
   ],

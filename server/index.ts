@@ -6,6 +6,8 @@ import { createDb } from './db/client'
 import { consoleLogger } from './errors'
 import { createBackgroundJobs } from './jobs'
 import { loadJwtKey } from './secret'
+import { createAttachmentService } from './services/attachments'
+import { createStorage } from './storage'
 
 async function main(): Promise<void> {
   const config = loadConfig()
@@ -24,7 +26,14 @@ async function main(): Promise<void> {
     `  database ${redactUrl(config.databaseUrl)}, demo mode ${config.demoMode ? 'on' : 'off'}`,
   )
   // Mail outbox drain and the daily overdue digest; every replica may run them (rows are claimed).
-  const jobs = createBackgroundJobs({ db: handle.db, config, logger: consoleLogger })
+  const attachments = createAttachmentService({
+    db: handle.db,
+    storage: createStorage(config.dataDir),
+    now: () => new Date(),
+    frameRetentionDays: config.uploads.frameRetentionDays,
+    maxBytes: config.uploads.maxBytes,
+  })
+  const jobs = createBackgroundJobs({ db: handle.db, config, logger: consoleLogger, attachments })
   jobs.start()
 
   let stopping = false

@@ -1,5 +1,5 @@
 import { execFile } from 'node:child_process'
-import { mkdtempSync, writeFileSync } from 'node:fs'
+import { mkdirSync, mkdtempSync, writeFileSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { promisify } from 'node:util'
@@ -42,6 +42,7 @@ beforeAll(() => {
   new DataView(huge.buffer).setUint32(16, 12000)
   new DataView(huge.buffer).setUint32(20, 9000)
   writeFileSync(file('huge.png'), huge)
+  mkdirSync(file('folder.png'))
 })
 
 async function run(args: string[]) {
@@ -105,19 +106,20 @@ describe('npm run analyze', () => {
   })
 
   it('reports each bad file on stderr, still analyses the others, and exits 1', async () => {
-    const bad = ['missing.png', 'notes.txt', 'broken.png', 'huge.png']
+    const bad = ['missing.png', 'notes.txt', 'broken.png', 'huge.png', 'folder.png']
     const { code, out, err } = await run([...bad.map(file), file('edge.png'), '--json'])
     expect(code).toBe(1)
     expect(out.trim().split('\n')).toHaveLength(1)
     expect(JSON.parse(out).file).toBe(file('edge.png'))
     const lines = err.trim().split('\n')
-    expect(lines).toHaveLength(4)
+    expect(lines).toHaveLength(5)
     expect(lines[0]).toBe(`analyze: ${file('missing.png')}: no such file.`)
     expect(lines[1]).toMatch(/notes\.txt: The file is neither a PNG nor a JPEG image\.$/)
     expect(lines[2]).toMatch(/broken\.png: The PNG data cannot be decoded/)
     expect(lines[3]).toMatch(
       /huge\.png: The image is 12000 × 9000 \(108\.0 MP\), larger than the 100 MP limit\.$/,
     )
+    expect(lines[4]).toBe(`analyze: ${file('folder.png')}: is a directory, not an image file.`)
   })
 
   it('measures the given regions with --roi and names a region that does not fit', async () => {

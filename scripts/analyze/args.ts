@@ -13,7 +13,8 @@ blur-kernel estimate, warnings, and the frame's focus measures.
   --json             one JSON object per file and line, instead of a table
   -h, --help         show this help
 
-Frequencies are in cycles/pixel along the edge normal (Nyquist = 0.5).
+Frequencies are in cycles/pixel along the edge normal (Nyquist = 0.5). Focus measures are sums
+over the frame's linear luminance (0-1): compare them only with the same camera and scene.
 Exit code: 0 all files analysed, 1 some file failed, 2 bad command line.`
 
 export interface CliArgs {

@@ -46,7 +46,6 @@ function describe(error: unknown): string {
   if (error && typeof error === 'object' && 'code' in error) {
     const code = (error as { code?: string }).code
     if (code === 'ENOENT') return 'no such file.'
-    if (code === 'EISDIR') return 'is a directory, not an image file.'
     if (code === 'EACCES') return 'permission denied.'
   }
   if (error instanceof RangeError || error instanceof TypeError) return error.message

@@ -1,4 +1,4 @@
-import { readFile } from 'node:fs/promises'
+import { readFile, stat } from 'node:fs/promises'
 import { decode } from 'image-js'
 import { assertFrameSize, readImageHeader } from '../../shared/analysis/image/header'
 import { toGreyImage } from '../../shared/analysis/image/luminance'
@@ -10,10 +10,20 @@ export interface LoadedFrame {
 }
 
 /**
- * Reads a PNG (8/16-bit) or JPEG file, refuses frames whose header claims more than 100 MP
- * before decoding, decodes it with image-js and converts it to linear luminance (Rec. 709).
+ * Reads a PNG (8/16-bit) or JPEG file, refuses files over 1 GiB and frames whose header claims
+ * more than 100 MP before decoding, decodes it with image-js and converts it to linear luminance (Rec. 709).
  */
+/** Largest file read at all (a 100 MP frame compresses well below this). */
+export const MAX_FILE_BYTES = 1 << 30
+
 export async function loadFrame(path: string, transfer: Transfer): Promise<LoadedFrame> {
+  const info = await stat(path)
+  if (info.isDirectory()) throw new TypeError('is a directory, not an image file.')
+  if (info.size > MAX_FILE_BYTES) {
+    throw new RangeError(
+      `The file is ${(info.size / 2 ** 30).toFixed(1)} GiB, larger than the 1 GiB limit.`,
+    )
+  }
   const bytes = new Uint8Array(await readFile(path))
   const header = readImageHeader(bytes)
   assertFrameSize(header)

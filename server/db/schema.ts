@@ -6,6 +6,7 @@ import {
   bigint,
   boolean,
   char,
+  date,
   datetime,
   double,
   index,
@@ -14,6 +15,7 @@ import {
   mysqlEnum,
   mysqlTable,
   primaryKey,
+  smallint,
   mediumtext,
   text,
   uniqueIndex,
@@ -158,6 +160,21 @@ export const cameras = mysqlTable(
     index('cameras_task_idx').on(t.taskId),
     index('cameras_model_idx').on(t.cameraModelId),
     index('cameras_next_due_idx').on(t.nextDueAt),
+    // Fleet counts read every active camera's group and latest result from this index alone.
+    index('cameras_fleet_idx').on(
+      t.active,
+      t.siteId,
+      t.taskId,
+      t.cameraModelId,
+      t.lastCheckAt,
+      t.lastVerdict,
+      t.nextDueAt,
+    ),
+    // Camera table pages filtered by state and sorted by the last check or MTF50.
+    index('cameras_state_check_idx').on(t.active, t.state, t.lastCheckAt),
+    index('cameras_state_mtf_idx').on(t.active, t.state, t.lastMtf50CyPx),
+    // Overdue cameras (next check date passed), counted and sorted from the index alone.
+    index('cameras_due_mtf_idx').on(t.active, t.nextDueAt, t.lastMtf50CyPx),
   ],
 )
 
@@ -233,6 +250,8 @@ export const checks = mysqlTable(
     index('checks_camera_time_idx').on(t.cameraId, t.capturedAt),
     index('checks_time_idx').on(t.capturedAt),
     index('checks_inspector_idx').on(t.inspectorId, t.capturedAt),
+    // Fleet trends and period counts: checks in a period with their camera and result.
+    index('checks_period_idx').on(t.capturedAt, t.cameraId, t.verdict, t.medianMtf50CyPx),
   ],
 )
 
@@ -451,3 +470,37 @@ export const auditLog = mysqlTable(
     index('audit_log_entity_idx').on(t.entity, t.entityId),
   ],
 )
+
+// Maintained weekly aggregates for the fleet charts (server/services/fleet/weeks.ts): every
+// recorded check adds one to its week's rows; a rebuild recomputes them from `checks`. Weeks
+// start Monday 00:00 UTC; site and model are the camera's when the check was recorded.
+export const fleetWeekSites = mysqlTable(
+  'fleet_week_sites',
+  {
+    week: date({ mode: 'string' }).notNull(),
+    siteId: int().notNull(),
+    checks: int().notNull().default(0),
+    passed: int().notNull().default(0),
+    marginal: int().notNull().default(0),
+    failed: int().notNull().default(0),
+  },
+  (t) => [primaryKey({ columns: [t.week, t.siteId] })],
+)
+
+export const fleetWeekModels = mysqlTable(
+  'fleet_week_models',
+  {
+    week: date({ mode: 'string' }).notNull(),
+    cameraModelId: int().notNull(),
+    // Median MTF50 bin: floor(MTF50 / 0.025), the last bin holding everything above.
+    mtfBin: smallint().notNull(),
+    checks: int().notNull().default(0),
+  },
+  (t) => [primaryKey({ columns: [t.week, t.cameraModelId, t.mtfBin] })],
+)
+
+// One row once the weekly aggregates have been built from the checks in this database.
+export const fleetAggregateState = mysqlTable('fleet_aggregate_state', {
+  id: int().primaryKey(),
+  rebuiltAt: datetime({ mode: 'date', fsp: 3 }).notNull(),
+})

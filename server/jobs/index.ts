@@ -10,6 +10,19 @@ import type { Scheduler } from './scheduler'
 
 export const MAIL_JOB = 'mail-outbox'
 export const DIGEST_JOB = 'overdue-digest'
+export const RETENTION_JOB = 'attachment-retention'
+
+/** Full frames are deleted once FRAME_RETENTION_DAYS have passed (checked hourly). */
+function retentionJob(attachments: { purgeExpired(): Promise<number> }, logger: Logger) {
+  return {
+    name: RETENTION_JOB,
+    intervalMs: 60 * 60_000,
+    async run() {
+      const n = await attachments.purgeExpired()
+      if (n) logger.info(`retention: ${n} expired frame(s) deleted`)
+    },
+  }
+}
 
 export interface JobOptions {
   db: Db
@@ -22,6 +35,8 @@ export interface JobOptions {
   digestIntervalMs?: number
   /** Hour of the day (UTC) from which the day's digest goes out (default 7). */
   digestHourUtc?: number
+  /** Deletes uploaded frames past their retention date (run hourly when given). */
+  attachments?: { purgeExpired(): Promise<number> }
 }
 
 export function createBackgroundJobs(o: JobOptions): Scheduler {
@@ -49,6 +64,7 @@ export function createBackgroundJobs(o: JobOptions): Scheduler {
         run: () =>
           digestIfDue(o.db, { now: now(), publicUrl: o.config.publicUrl, hourUtc: o.digestHourUtc ?? 7 }),
       },
+      ...(o.attachments ? [retentionJob(o.attachments, o.logger)] : []),
     ],
     o.logger,
   )

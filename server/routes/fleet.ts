@@ -16,7 +16,8 @@ export const fleetRoutes = [
     method: 'get',
     path: '/api/fleet/summary',
     access: FLEET_READERS,
-    summary: 'Counts for a period (cameras, checked, pass rate, marginal, failing, overdue): overall, by site, by task.',
+    summary:
+      'Counts for a period (cameras, checked, pass rate, marginal, failing, overdue): overall, by site, by task.',
     query: fleetFilterSchema,
     handler: ({ services, query }) => services.fleet.summary(query),
   }),
@@ -24,7 +25,8 @@ export const fleetRoutes = [
     method: 'get',
     path: '/api/fleet/cameras',
     access: FLEET_READERS,
-    summary: 'The camera table: filtered (site, task, model, state, verdict, overdue, text), sorted and paged on the server.',
+    summary:
+      'The camera table: filtered (site, task, model, state, verdict, overdue, text), sorted and paged on the server.',
     query: fleetCameraQuerySchema,
     handler: ({ services, query }) => services.fleet.cameras(query),
   }),
@@ -32,7 +34,8 @@ export const fleetRoutes = [
     method: 'get',
     path: '/api/fleet/cameras/:id/history',
     access: FLEET_READERS,
-    summary: "A camera's checks (newest first) with its threshold and baseline, for the trend chart.",
+    summary:
+      "A camera's checks (newest first) with its threshold and baseline, for the trend chart.",
     params: idParamSchema,
     query: cameraHistoryQuerySchema,
     handler: ({ services, params, query }) => services.fleet.history(params.id, query.limit),
@@ -49,7 +52,8 @@ export const fleetRoutes = [
     method: 'get',
     path: '/api/fleet/trends/pass-rate',
     access: FLEET_READERS,
-    summary: 'Share of checks that passed per week, overall and for the sites with the lowest pass rate.',
+    summary:
+      'Share of checks that passed per week, overall and for the sites with the lowest pass rate.',
     query: passRateTrendQuerySchema,
     handler: ({ services, query }) => services.fleet.passRate(query),
   }),

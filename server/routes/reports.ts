@@ -52,7 +52,8 @@ export const reportRoutes = [
     method: 'get',
     path: '/api/reports/checks/:id/acceptance.pdf',
     access: REPORT_READERS,
-    summary: 'PDF acceptance record of one check (camera, visit, result, MTF chart, signature lines).',
+    summary:
+      'PDF acceptance record of one check (camera, visit, result, MTF chart, signature lines).',
     params: checkIdParamSchema,
     async handler({ services, params, res }) {
       sendPdf(res, await services.reports.acceptancePdf(params.id))

@@ -40,13 +40,23 @@ function receiveCsv(req: Request, res: Response): Promise<UploadedCsv> {
               413,
             ),
           )
-        return reject(new AppError(CSV_IMPORT_ERRORS.badFile, `The upload was not accepted: ${err.message}.`, 400))
+        return reject(
+          new AppError(
+            CSV_IMPORT_ERRORS.badFile,
+            `The upload was not accepted: ${err.message}.`,
+            400,
+          ),
+        )
       }
       if (err) return reject(err as Error)
       const file = req.file
       if (!file)
         return reject(
-          new AppError(CSV_IMPORT_ERRORS.badFile, 'Attach the CSV file as the form field "file".', 400),
+          new AppError(
+            CSV_IMPORT_ERRORS.badFile,
+            'Attach the CSV file as the form field "file".',
+            400,
+          ),
         )
       const name = file.originalname || 'cameras.csv'
       if (!/\.(csv|txt)$/i.test(name) && !/csv|text\/plain/.test(file.mimetype))
@@ -175,7 +185,8 @@ export const setupRoutes = [
     method: 'post',
     path: '/api/setup/camera-import/preview',
     access: ['admin'],
-    summary: 'Check a camera CSV (multipart field "file", at most 2 MB and 10 000 rows): every row with its errors; nothing is written.',
+    summary:
+      'Check a camera CSV (multipart field "file", at most 2 MB and 10 000 rows): every row with its errors; nothing is written.',
     async handler({ services, req, res }) {
       return services.admin.cameraImport.preview(await receiveCsv(req, res))
     },
@@ -184,7 +195,8 @@ export const setupRoutes = [
     method: 'post',
     path: '/api/setup/camera-import/commit',
     access: ['admin'],
-    summary: 'Import a camera CSV in one transaction: checked again, and nothing imported when any row is wrong (422).',
+    summary:
+      'Import a camera CSV in one transaction: checked again, and nothing imported when any row is wrong (422).',
     status: 201,
     async handler(ctx) {
       return ctx.services.admin.cameraImport.commit(userOf(ctx), await receiveCsv(ctx.req, ctx.res))

@@ -1,6 +1,7 @@
 import type { Role } from '../../shared/schemas/enums'
 import { adminRoutes } from './admin'
 import { authRoutes } from './auth'
+import { cameraCheckRoutes } from './cameraChecks'
 import { catalogRoutes } from './catalog'
 import type { RouteDef } from './define'
 import { fleetRoutes } from './fleet'
@@ -18,6 +19,7 @@ export const routes: readonly RouteDef[] = [
   ...healthRoutes,
   ...authRoutes,
   ...catalogRoutes,
+  ...cameraCheckRoutes,
   ...adminRoutes,
   ...mailboxRoutes,
   ...workOrderRoutes,

@@ -8,6 +8,7 @@ import type { ObjectStorage } from '../storage'
 import { createAttachmentService } from './attachments'
 import { createAdminService } from './admin'
 import { createAuthService } from './auth'
+import { createCameraChecksService } from './cameraChecks'
 import { createCameraService } from './cameras'
 import { createCatalogService } from './catalog'
 import { createFleetService } from './fleet'
@@ -41,6 +42,7 @@ export function createServices({ config, db, tokens, limiter, now, ...deps }: Se
     users: createUserService(db),
     sites: createSiteService(db),
     cameras: createCameraService(db, now),
+    cameraChecks: createCameraChecksService(db),
     catalog: createCatalogService(db),
     health: createHealthService(db),
     mailbox: { list: () => readMailbox(mailboxDir(config.dataDir)) },

@@ -14,10 +14,9 @@ export const FLEET_MAX_PERIOD_DAYS = 1900
 const id = z.coerce.number().int('must be a whole number').positive('must be positive')
 
 /** A day (YYYY-MM-DD, whole UTC day) or an exact instant (ISO 8601 with offset). */
-export const periodBoundSchema = z.union(
-  [z.iso.date(), z.iso.datetime({ offset: true })],
-  { error: 'must be a date (YYYY-MM-DD) or an ISO 8601 time' },
-)
+export const periodBoundSchema = z.union([z.iso.date(), z.iso.datetime({ offset: true })], {
+  error: 'must be a date (YYYY-MM-DD) or an ISO 8601 time',
+})
 
 /** Filters shared by the counts, charts and exports. */
 export const fleetFilterSchema = z.object({
@@ -249,7 +248,10 @@ export const passRateTrendQuerySchema = fleetFilterSchema.extend({
   sites: z.coerce.number().int().min(1).max(50).default(8),
 })
 
-/** GET /api/fleet/trends/pass-rate: share of checks that passed, per week, overall and by site. */
+/**
+ * GET /api/fleet/trends/pass-rate: share of checks that passed, per week, overall and by site,
+ * over the whole weeks overlapping the period (retired cameras' checks included).
+ */
 export const passRateTrendSchema = z.object({
   period: z.object({ from: isoDateTime, to: isoDateTime }),
   weeks: z.array(z.iso.date()),
@@ -272,7 +274,7 @@ export type PassRateTrend = z.infer<typeof passRateTrendSchema>
 export const MTF50_BIN_CY_PX = 0.025
 export const MTF50_BIN_COUNT = 24 // 0 … 0.6 c/p; larger values go in the last bin
 
-/** GET /api/fleet/distribution/mtf50: checks' median MTF50 in the period, by camera model. */
+/** GET /api/fleet/distribution/mtf50: checks' median MTF50 by camera model, whole weeks overlapping the period. */
 export const mtfDistributionSchema = z.object({
   period: z.object({ from: isoDateTime, to: isoDateTime }),
   binWidthCyPx: z.number(),

@@ -12,8 +12,8 @@ const id = z.number().int('must be a whole number').positive('must be positive')
 export const roundCreateSchema = z
   .object({
     name: z.string().trim().min(1, 'Give the round a name.').max(120),
-    assigneeId: id,
-    dueAt: isoDateTime,
+    assigneeId: z.number({ error: 'Choose an inspector.' }).int().positive('Choose an inspector.'),
+    dueAt: z.iso.datetime({ offset: true, error: 'Choose a due date.' }),
     /** A whole site: every active camera there (unless cameraIds narrows it). */
     siteId: id.optional(),
     cameraIds: z
@@ -82,6 +82,10 @@ export const roundCancelSchema = z.object({
 })
 
 /** An inspector a round can be given to. */
-export const assigneeSchema = z.object({ id: z.number().int(), name: z.string(), email: z.string() })
+export const assigneeSchema = z.object({
+  id: z.number().int(),
+  name: z.string(),
+  email: z.string(),
+})
 export const assigneeListSchema = z.object({ items: z.array(assigneeSchema) })
 export type RoundAssignee = z.infer<typeof assigneeSchema>

@@ -16,7 +16,11 @@ export const passwordSchema = z
   .max(200, 'At most 200 characters.')
 
 export const userCreateSchema = z.object({
-  email: z.email('Enter an e-mail address.').max(254).transform((e) => e.trim().toLowerCase()),
+  email: z
+    .string({ error: 'Enter an e-mail address.' })
+    .trim()
+    .toLowerCase()
+    .pipe(z.email('Enter an e-mail address.').max(254, 'At most 254 characters.')),
   name: name(120, 'a name'),
   role: roleSchema,
   password: passwordSchema,
@@ -52,13 +56,20 @@ export const timeZoneSchema = z
   .max(64)
   .refine(isTimeZone, 'Not a known time zone (e.g. Europe/London, UTC).')
 
-export const siteInputSchema = z.object({
+const siteFields = {
   name: name(120, 'the site name'),
-  address: z.string().trim().max(255, 'At most 255 characters.').default(''),
-  timeZone: timeZoneSchema.default('UTC'),
+  address: z.string().trim().max(255, 'At most 255 characters.'),
+  timeZone: timeZoneSchema,
+}
+
+export const siteInputSchema = z.object({
+  ...siteFields,
+  address: siteFields.address.default(''),
+  timeZone: siteFields.timeZone.default('UTC'),
 })
 export type SiteInput = z.infer<typeof siteInputSchema>
-export const siteUpdateSchema = siteInputSchema.partial()
+/** A change to a site: only the fields sent (no defaults filled in). */
+export const siteUpdateSchema = z.object(siteFields).partial()
 
 const positive = (what: string, max: number) =>
   z
@@ -89,7 +100,10 @@ export const cameraModelInputSchema = z
 export type CameraModelInput = z.infer<typeof cameraModelInputSchema>
 
 const ratio = (what: string) =>
-  z.number({ error: `Enter ${what} as a number.` }).gt(0, 'More than 0.').lt(1, 'Less than 1.')
+  z
+    .number({ error: `Enter ${what} as a number.` })
+    .gt(0, 'More than 0.')
+    .lt(1, 'Less than 1.')
 
 /** What a supervisor or admin may change on a task (its thresholds and follow-up). */
 export const taskUpdateSchema = z
@@ -141,23 +155,40 @@ export const assetTagSchema = z
 
 const optionalPositive = (what: string, max: number) => positive(what, max).nullable().optional()
 
-export const cameraInputSchema = z.object({
+const cameraFields = {
   assetTag: assetTagSchema,
   siteId: z.number({ error: 'Choose a site.' }).int().positive('Choose a site.'),
-  locationText: z.string().trim().max(255, 'At most 255 characters.').default(''),
-  cameraModelId: z.number({ error: 'Choose a camera model.' }).int().positive(),
+  locationText: z.string().trim().max(255, 'At most 255 characters.'),
+  cameraModelId: z
+    .number({ error: 'Choose a camera model.' })
+    .int()
+    .positive('Choose a camera model.'),
   taskId: z.string({ error: 'Choose a task.' }).trim().min(1, 'Choose a task.').max(32),
   /** Overrides of the task's defaults; null = use the task's value. */
   requiredPxPerM: optionalPositive('the pixel density', 100_000),
   minMtf50CyPx: z.number().gt(0, 'More than 0.').max(1, 'At most 1.').nullable().optional(),
-  checkIntervalDays: z.number().int('Whole days.').min(1).max(3650).nullable().optional(),
+  checkIntervalDays: z
+    .number()
+    .int('Whole days.')
+    .min(1, 'At least 1 day.')
+    .max(3650)
+    .nullable()
+    .optional(),
   focalLengthMm: optionalPositive('the focal length', 2000),
   targetDistanceM: optionalPositive('the target distance', 10_000),
-  active: z.boolean().default(true),
+  active: z.boolean(),
+}
+
+export const cameraInputSchema = z.object({
+  ...cameraFields,
+  locationText: cameraFields.locationText.default(''),
+  active: cameraFields.active.default(true),
 })
 export type CameraInput = z.infer<typeof cameraInputSchema>
 
-export const cameraUpdateSchema = cameraInputSchema
+/** A change to a camera: only the fields sent (no defaults filled in), and the version seen. */
+export const cameraUpdateSchema = z
+  .object(cameraFields)
   .partial()
   .extend({ version: z.number().int().positive().optional() })
 export type CameraUpdate = z.infer<typeof cameraUpdateSchema>

@@ -15,12 +15,15 @@ export const CLIENT_ERROR_CODES = {
 export class ApiError extends Error {
   readonly code: string
   readonly status: number
+  /** The server's `error.details`, when it sent any (field messages, the current record…). */
+  readonly details: unknown
 
-  constructor(code: string, message: string, status: number) {
+  constructor(code: string, message: string, status: number, details?: unknown) {
     super(message)
     this.name = 'ApiError'
     this.code = code
     this.status = status
+    this.details = details
   }
 
   /** True when no answer came back: the app should fall back to its local data. */

@@ -80,13 +80,13 @@ async function readJson(res: Response): Promise<unknown> {
 
 async function toApiError(res: Response): Promise<ApiError> {
   const data = (await readJson(res)) as
-    { error?: { code?: unknown; message?: unknown } } | undefined
+    { error?: { code?: unknown; message?: unknown; details?: unknown } } | undefined
   const code = typeof data?.error?.code === 'string' ? data.error.code : `http_${res.status}`
   const message =
     typeof data?.error?.message === 'string' && data.error.message
       ? data.error.message
       : messageForStatus(res.status)
-  return new ApiError(code, message, res.status)
+  return new ApiError(code, message, res.status, data?.error?.details)
 }
 
 export function createHttp(initial: Partial<HttpOptions> = {}): Http {

@@ -4,6 +4,22 @@ import Dexie, { type EntityTable } from 'dexie'
 import type { Camera } from '@shared/schemas/cameras'
 import type { Task } from '@shared/schemas/catalog'
 import type { Site } from '@shared/schemas/sites'
+import {
+  CHECK_STORES,
+  type CameraHistoryRecord,
+  type CameraModelRecord,
+  type CheckRecord,
+  type CropRecord,
+  type FrameRecord,
+  type MeasurementRecord,
+} from './checks'
+import {
+  SYNC_STORES,
+  type OutboxRecord,
+  type SyncRound,
+  type UploadRecord,
+  type WorkOrder,
+} from './syncTables'
 
 export interface MetaRecord {
   key: string
@@ -22,6 +38,16 @@ export class SharpfieldDb extends Dexie {
   cameras!: EntityTable<Camera, 'id'>
   tasks!: EntityTable<Task, 'id'>
   meta!: EntityTable<MetaRecord, 'key'>
+  checks!: EntityTable<CheckRecord, 'id'>
+  measurements!: EntityTable<MeasurementRecord, 'id'>
+  frames!: EntityTable<FrameRecord, 'checkId'>
+  crops!: EntityTable<CropRecord, 'id'>
+  cameraHistory!: EntityTable<CameraHistoryRecord, 'cameraId'>
+  cameraModels!: EntityTable<CameraModelRecord, 'id'>
+  outbox!: EntityTable<OutboxRecord, 'seq'>
+  uploads!: EntityTable<UploadRecord, 'id'>
+  rounds!: EntityTable<SyncRound, 'id'>
+  workOrders!: EntityTable<WorkOrder, 'id'>
 
   constructor(name = 'sharpfield') {
     super(name)
@@ -31,6 +57,10 @@ export class SharpfieldDb extends Dexie {
       tasks: 'id',
       meta: 'key',
     })
+    // Checks made on the device, their regions, frames and crops; server history; camera models.
+    this.version(2).stores(CHECK_STORES)
+    // Sync: the outbox, the upload queue, pulled rounds and work orders.
+    this.version(3).stores(SYNC_STORES)
   }
 }
 

@@ -58,6 +58,19 @@ export const routes: RouteRecordRaw[] = [
     meta: { title: 'Work orders', roles: ['supervisor', 'maintenance'] },
   },
   {
+    path: '/work-orders/:id(\\d+)',
+    name: 'work-order',
+    component: () => import('@/views/WorkOrderView.vue'),
+    props: (route) => ({ id: Number(route.params.id) }),
+    meta: { title: 'Work order', back: true, roles: ['supervisor', 'maintenance'] },
+  },
+  {
+    path: '/mailbox',
+    name: 'mailbox',
+    component: () => import('@/views/MailboxView.vue'),
+    meta: { title: 'Mailbox (demo)', back: true, roles: ['supervisor', 'admin'] },
+  },
+  {
     path: '/cameras',
     name: 'cameras',
     component: () => import('@/views/CamerasView.vue'),
@@ -71,6 +84,20 @@ export const routes: RouteRecordRaw[] = [
     meta: { title: 'Camera', back: true, tabs: ['/rounds', '/cameras', '/fleet', '/work-orders'] },
   },
   {
+    path: '/cameras/:id(\\d+)/check',
+    name: 'camera-check',
+    component: () => import('@/views/CheckView.vue'),
+    props: (route) => ({ id: Number(route.params.id) }),
+    meta: { title: 'Check', back: true, roles: ['inspector', 'supervisor'], tabs: ['/rounds', '/cameras'] },
+  },
+  {
+    path: '/checks/:checkId([0-9a-fA-F-]{36})',
+    name: 'check',
+    component: () => import('@/views/CheckResultView.vue'),
+    props: true,
+    meta: { title: 'Check result', back: true, roles: ['inspector', 'supervisor'], tabs: ['/rounds', '/cameras'] },
+  },
+  {
     path: '/tools/targets',
     name: 'targets',
     component: () => import('@/views/TargetsView.vue'),
@@ -81,6 +108,31 @@ export const routes: RouteRecordRaw[] = [
     name: 'lens',
     component: () => import('@/views/LensView.vue'),
     meta: { title: 'Lens calculator', back: true, tabs: ['/tools', '/me'] },
+  },
+  {
+    path: '/fleet/cameras/:id(\\d+)',
+    name: 'fleet-camera',
+    component: () => import('@/views/FleetCameraView.vue'),
+    props: (route) => ({ id: Number(route.params.id) }),
+    meta: { title: 'Camera history', back: true, roles: ['supervisor', 'admin'], tabs: ['/cameras', '/fleet'] },
+  },
+  {
+    path: '/fleet/rounds',
+    name: 'fleet-rounds',
+    component: () => import('@/views/RoundsAssignView.vue'),
+    meta: { title: 'Rounds', back: true, roles: ['supervisor'] },
+  },
+  {
+    path: '/fleet/thresholds',
+    name: 'fleet-thresholds',
+    component: () => import('@/views/ThresholdsView.vue'),
+    meta: { title: 'Task thresholds', back: true, roles: ['supervisor', 'admin'] },
+  },
+  {
+    path: '/setup/audit',
+    name: 'setup-audit',
+    component: () => import('@/views/AuditLogView.vue'),
+    meta: { title: 'Audit log', back: true, roles: ['admin'] },
   },
   {
     path: '/setup',

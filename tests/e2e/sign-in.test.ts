@@ -85,8 +85,11 @@ describe('signing in', () => {
         const sites = new Set(active.map((c) => c.siteId)).size
         if (role === 'supervisor') {
           await expect
-            .poll(() => page.getByText(/active cameras at \d+ sites/).innerText())
-            .toBe(`${active.length} active cameras at ${sites} sites.`)
+            .poll(() => page.locator('[data-test="count-cameras"] .count-tile__value').innerText())
+            .toBe(String(active.length))
+          await expect
+            .poll(() => page.locator('[data-test="fleet-by-site"] [data-test="count-row"]').count())
+            .toBe(sites)
         } else {
           await expect
             .poll(() => page.locator('[data-test="setup-users"]').innerText())
@@ -94,13 +97,20 @@ describe('signing in', () => {
           await openTab(page, 'Fleet')
           await page.waitForURL(`${baseUrl}/fleet`)
           await expect
-            .poll(() => page.getByText(/active cameras at \d+ sites/).innerText())
-            .toBe(`${active.length} active cameras at ${sites} sites.`)
+            .poll(() => page.locator('[data-test="count-cameras"] .count-tile__value').innerText())
+            .toBe(String(active.length))
+          await expect
+            .poll(() => page.locator('[data-test="fleet-by-site"] [data-test="count-row"]').count())
+            .toBe(sites)
           await page.goBack()
         }
       }
       if (role === 'maintenance') {
-        await expect.poll(() => page.getByText('No work orders yet').isVisible()).toBe(true)
+        // "My work orders": exactly the ones the server has assigned to this user.
+        const mine = (await apiAs('maintenance@sharpfield.test', '/api/work-orders?status=active')) as { total: number }
+        await expect
+          .poll(() => page.locator('[data-test="wo-count"]').innerText())
+          .toMatch(new RegExp(`^${mine.total} orders?`))
       }
       await browser.screenshot(`home-${role}`)
 

@@ -112,6 +112,7 @@ describe('who is told what', () => {
     o = await act('supervisor', o, { action: 'assign', assigneeId: w.users.maint1.id })
     const mark = await lastMailId()
     o = await act('maint1', o, { action: 'request_recheck' })
+    expect(o.status).toBe('awaiting_recheck')
     const mails = await newMails(mark)
     expect(mails.map((m) => [m.kind, m.toAddress])).toEqual([['work_order.recheck_due', w.users.inspector2.email]])
   })

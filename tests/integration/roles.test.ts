@@ -46,10 +46,21 @@ describe('role matrix', () => {
       'GET /api/auth/me',
       'GET /api/users',
       'GET /api/cameras',
+      'GET /api/work-orders',
+      'POST /api/work-orders',
+      'GET /api/work-orders/:id',
+      'POST /api/work-orders/:id/actions',
+      'POST /api/work-orders/:id/photos',
+      'GET /api/assignees',
     ]) {
       expect(keys).toContain(k)
     }
     expect(routeTable.find((r) => r.path === '/api/users')?.roles).toEqual(['admin'])
+    const woRoles = (method: string, path: string) =>
+      routeTable.find((r) => r.method === method && r.path === path)?.roles
+    expect(woRoles('POST', '/api/work-orders')).toEqual(['supervisor'])
+    expect(woRoles('POST', '/api/work-orders/:id/actions')).toEqual(['supervisor', 'maintenance'])
+    expect(woRoles('GET', '/api/assignees')).toEqual(['supervisor'])
   })
 
   it('the app mounts exactly the routes of the table (nothing bypasses it)', () => {

@@ -175,4 +175,27 @@ describe('work-order actions through sync (workOrder.action)', () => {
     const bad = await pushAction('maint1', { workOrderId: o.id, action: 'reassign', version: o.version })
     expect(bad.status).toBe('rejected')
   })
+
+  it('the same operation pushed twice applies once; inspectors may not send work-order actions', async () => {
+    let o = workOrderDetailSchema.parse((await api(w, 'supervisor').get(`/api/work-orders/${await openOrderOf(tdb.db, w.otherCamera)}`)).body)
+    const op = {
+      id: randomUUID(),
+      kind: 'workOrder.action',
+      payload: { workOrderId: o.id, action: 'comment', version: o.version, note: 'Sent twice by a flaky connection.' },
+    }
+    const push = (who: Person, ops: object[]) =>
+      request(w.app).post('/api/sync/push').set('Authorization', `Bearer ${w.token[who]}`).send({ deviceId: `phone-${who}`, ops })
+    const first = await push('maint1', [op])
+    const again = await push('maint1', [op])
+    expect(first.body.results[0].status).toBe('applied')
+    expect(again.body.results[0].status).toBe('duplicate')
+    const after = await detail(o.id)
+    expect(after.version).toBe(o.version + 1)
+    expect(after.history.filter((h) => h.note === 'Sent twice by a flaky connection.').length).toBe(1)
+    o = after
+
+    const byInspector = await push('inspector', [{ ...op, id: randomUUID() }])
+    expect(byInspector.body.results[0].status).toBe('rejected')
+    expect((await detail(o.id)).version).toBe(o.version)
+  })
 })

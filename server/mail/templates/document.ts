@@ -46,7 +46,6 @@ function safeUrl(url: string): string | null {
 
 /** Collapses control characters (but keeps line breaks) so a header-like text stays one mail. */
 function clean(value: string): string {
-  // eslint-disable-next-line no-control-regex
   return value.replace(/[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f]/g, ' ')
 }
 

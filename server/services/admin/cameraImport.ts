@@ -51,9 +51,9 @@ export function createCameraImport(db: Db) {
             )
           const inputs = rows.map((r) => r.input!)
           for (let i = 0; i < inputs.length; i += BATCH) {
-            await tx.insert(cameras).values(
-              inputs.slice(i, i + BATCH).map((c) => ({ ...c, state: 'due' as const })),
-            )
+            await tx
+              .insert(cameras)
+              .values(inputs.slice(i, i + BATCH).map((c) => ({ ...c, state: 'due' as const })))
           }
           const tags = inputs.map((c) => c.assetTag)
           const ids: number[] = []

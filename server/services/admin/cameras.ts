@@ -23,7 +23,8 @@ async function checkReferences(tx: DbOrTx, input: Partial<CameraInput>): Promise
       .select({ id: cameraModels.id })
       .from(cameraModels)
       .where(eq(cameraModels.id, input.cameraModelId))
-    if (!m) throw fieldError('cameraModelId', `There is no camera model with id ${input.cameraModelId}.`)
+    if (!m)
+      throw fieldError('cameraModelId', `There is no camera model with id ${input.cameraModelId}.`)
   }
   if (input.taskId !== undefined) {
     const [t] = await tx.select({ id: tasks.id }).from(tasks).where(eq(tasks.id, input.taskId))
@@ -52,12 +53,22 @@ export function createCameraAdmin(db: Db) {
       return db.transaction(async (tx) => {
         await checkReferences(tx, input)
         const [ins] = await uniqueOr(
-          () => tx.insert(cameras).values({ ...input, state: 'due' }).$returningId(),
+          () =>
+            tx
+              .insert(cameras)
+              .values({ ...input, state: 'due' })
+              .$returningId(),
           ASSET_TAG_KEY,
           'assetTag',
           ASSET_TAG_TAKEN,
         )
-        await audit(tx, { actorId: actor.id, action: 'camera.create', entity: 'camera', entityId: ins.id, detail: { after: input } })
+        await audit(tx, {
+          actorId: actor.id,
+          action: 'camera.create',
+          entity: 'camera',
+          entityId: ins.id,
+          detail: { after: input },
+        })
         await recordChanges(tx, SYNC_ENTITIES.camera, [ins.id])
         return ins.id
       })
@@ -67,7 +78,8 @@ export function createCameraAdmin(db: Db) {
       return db.transaction(async (tx) => {
         const [before] = await tx.select().from(cameras).where(eq(cameras.id, id)).for('update')
         if (!before) throw notFound('camera', id)
-        if (input.version !== undefined && input.version !== before.version) throw staleVersion('camera')
+        if (input.version !== undefined && input.version !== before.version)
+          throw staleVersion('camera')
         await checkReferences(tx, input)
         const change = diff(before, input)
         if (Object.keys(change.after).length === 0) return id
@@ -82,8 +94,18 @@ export function createCameraAdmin(db: Db) {
           ASSET_TAG_TAKEN,
         )
         const action =
-          change.after.active === false ? 'camera.retire' : change.after.active === true ? 'camera.reinstate' : 'camera.update'
-        await audit(tx, { actorId: actor.id, action, entity: 'camera', entityId: id, detail: change })
+          change.after.active === false
+            ? 'camera.retire'
+            : change.after.active === true
+              ? 'camera.reinstate'
+              : 'camera.update'
+        await audit(tx, {
+          actorId: actor.id,
+          action,
+          entity: 'camera',
+          entityId: id,
+          detail: change,
+        })
         await recordChanges(tx, SYNC_ENTITIES.camera, [id])
         return id
       })

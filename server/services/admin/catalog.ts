@@ -2,11 +2,7 @@
 // change feed, so devices pick it up on their next pull.
 import { eq, sql } from 'drizzle-orm'
 import type { CameraModel, Task } from '../../../shared/schemas/catalog'
-import type {
-  CameraModelInput,
-  SiteInput,
-  TaskUpdate,
-} from '../../../shared/schemas/setup'
+import type { CameraModelInput, SiteInput, TaskUpdate } from '../../../shared/schemas/setup'
 import type { Site } from '../../../shared/schemas/sites'
 import type { Db, DbOrTx } from '../../db/client'
 import { cameraModels, cameras, sites, tasks } from '../../db/schema'
@@ -45,7 +41,13 @@ export function createCatalogAdmin(db: Db) {
           'name',
           SITE_TAKEN,
         )
-        await audit(tx, { actorId: actor.id, action: 'site.create', entity: 'site', entityId: ins.id, detail: { after: input } })
+        await audit(tx, {
+          actorId: actor.id,
+          action: 'site.create',
+          entity: 'site',
+          entityId: ins.id,
+          detail: { after: input },
+        })
         await recordChanges(tx, SYNC_ENTITIES.site, [ins.id])
         return siteOut(tx, ins.id)
       })
@@ -63,7 +65,13 @@ export function createCatalogAdmin(db: Db) {
             'name',
             SITE_TAKEN,
           )
-          await audit(tx, { actorId: actor.id, action: 'site.update', entity: 'site', entityId: id, detail: change })
+          await audit(tx, {
+            actorId: actor.id,
+            action: 'site.update',
+            entity: 'site',
+            entityId: id,
+            detail: change,
+          })
           await recordChanges(tx, SYNC_ENTITIES.site, [id])
         }
         return siteOut(tx, id)
@@ -78,7 +86,13 @@ export function createCatalogAdmin(db: Db) {
           'name',
           MODEL_TAKEN,
         )
-        await audit(tx, { actorId: actor.id, action: 'camera_model.create', entity: 'camera_model', entityId: ins.id, detail: { after: input } })
+        await audit(tx, {
+          actorId: actor.id,
+          action: 'camera_model.create',
+          entity: 'camera_model',
+          entityId: ins.id,
+          detail: { after: input },
+        })
         await recordChanges(tx, SYNC_ENTITIES.cameraModel, [ins.id])
         const [row] = await tx.select().from(cameraModels).where(eq(cameraModels.id, ins.id))
         return toCameraModel(row)
@@ -87,7 +101,11 @@ export function createCatalogAdmin(db: Db) {
 
     async updateModel(actor: AuthUser, id: number, input: CameraModelInput): Promise<CameraModel> {
       return db.transaction(async (tx) => {
-        const [before] = await tx.select().from(cameraModels).where(eq(cameraModels.id, id)).for('update')
+        const [before] = await tx
+          .select()
+          .from(cameraModels)
+          .where(eq(cameraModels.id, id))
+          .for('update')
         if (!before) throw notFound('camera model', id)
         const change = diff(before, input)
         if (Object.keys(change.after).length) {
@@ -97,7 +115,13 @@ export function createCatalogAdmin(db: Db) {
             'name',
             MODEL_TAKEN,
           )
-          await audit(tx, { actorId: actor.id, action: 'camera_model.update', entity: 'camera_model', entityId: id, detail: change })
+          await audit(tx, {
+            actorId: actor.id,
+            action: 'camera_model.update',
+            entity: 'camera_model',
+            entityId: id,
+            detail: change,
+          })
           await recordChanges(tx, SYNC_ENTITIES.cameraModel, [id])
         }
         const [row] = await tx.select().from(cameraModels).where(eq(cameraModels.id, id))
@@ -110,7 +134,8 @@ export function createCatalogAdmin(db: Db) {
       return db.transaction(async (tx) => {
         const [before] = await tx.select().from(tasks).where(eq(tasks.id, id)).for('update')
         if (!before) throw notFound('task', id)
-        if (input.version !== undefined && input.version !== before.version) throw staleVersion('task')
+        if (input.version !== undefined && input.version !== before.version)
+          throw staleVersion('task')
         const warn = input.driftWarnRatio ?? before.driftWarnRatio
         const fail = input.driftFailRatio ?? before.driftFailRatio
         if (fail >= warn)
@@ -121,7 +146,13 @@ export function createCatalogAdmin(db: Db) {
             .update(tasks)
             .set({ ...change.after, version: sql`${tasks.version} + 1` })
             .where(eq(tasks.id, id))
-          await audit(tx, { actorId: actor.id, action: 'task.update', entity: 'task', entityId: id, detail: change })
+          await audit(tx, {
+            actorId: actor.id,
+            action: 'task.update',
+            entity: 'task',
+            entityId: id,
+            detail: change,
+          })
           await recordChanges(tx, SYNC_ENTITIES.task, [id])
         }
         const [row] = await tx.select().from(tasks).where(eq(tasks.id, id))

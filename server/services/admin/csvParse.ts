@@ -15,7 +15,8 @@ export interface ParsedCsv {
   rows: { line: number; cells: string[] }[]
 }
 
-const bad = (message: string, status = 400) => new AppError(CSV_IMPORT_ERRORS.badFile, message, status)
+const bad = (message: string, status = 400) =>
+  new AppError(CSV_IMPORT_ERRORS.badFile, message, status)
 
 function decode(bytes: Uint8Array): string {
   if (bytes.length === 0) throw bad('The file is empty.')
@@ -34,8 +35,9 @@ function decode(bytes: Uint8Array): string {
 }
 
 export function parseCameraCsv(bytes: Uint8Array): ParsedCsv {
-  const text = decode(bytes)
-  const result = Papa.parse<string[]>(text, { header: false, skipEmptyLines: false })
+  // One kind of line end (files edited on different systems may mix them).
+  const text = decode(bytes).replace(/\r\n?/g, '\n')
+  const result = Papa.parse<string[]>(text, { header: false, skipEmptyLines: false, newline: '\n' })
   const quoteError = result.errors.find((e) => e.type === 'Quotes')
   if (quoteError)
     throw bad(`The CSV is malformed: ${quoteError.message.toLowerCase()}. Check the quotes.`)
@@ -45,7 +47,7 @@ export function parseCameraCsv(bytes: Uint8Array): ParsedCsv {
   let line = 1
   for (const cells of result.data) {
     if (cells.some((c) => c.trim() !== '')) records.push({ line, cells })
-    line += 1 + cells.reduce((n, c) => n + (c.match(/\r\n|\n|\r/g)?.length ?? 0), 0)
+    line += 1 + cells.reduce((n, c) => n + (c.match(/\n/g)?.length ?? 0), 0)
   }
   const [head, ...rows] = records
   if (!head) throw bad('The file has no header line.')
@@ -56,7 +58,8 @@ export function parseCameraCsv(bytes: Uint8Array): ParsedCsv {
   const dupes = columns.filter((c, i) => c && columns.indexOf(c) !== i)
   const problems: string[] = []
   const plural = (n: number) => (n > 1 ? 's' : '')
-  if (missing.length) problems.push(`missing column${plural(missing.length)}: ${missing.join(', ')}`)
+  if (missing.length)
+    problems.push(`missing column${plural(missing.length)}: ${missing.join(', ')}`)
   if (unknown.length)
     problems.push(
       `unknown column${plural(unknown.length)}: ${unknown.map((u) => u || '(empty)').join(', ')}`,
@@ -79,11 +82,35 @@ export function parseCameraCsv(bytes: Uint8Array): ParsedCsv {
 
 /** The template: the header and two example rows (invented names). */
 export function cameraCsvTemplate(): string {
-  return Papa.unparse({
-    fields: [...CAMERA_CSV_COLUMNS],
-    data: [
-      ['GATE-07', 'Example Site', 'Example Model', 'recognise', 'North gate, pole 2', '', '', '', '6', '12'],
-      ['LINE3-CAM1', 'Example Site', 'Example Model', 'process_inspection', 'Line 3 capper', '', '0.3', '30', '', ''],
-    ],
-  }) + '\r\n'
+  return (
+    Papa.unparse({
+      fields: [...CAMERA_CSV_COLUMNS],
+      data: [
+        [
+          'GATE-07',
+          'Example Site',
+          'Example Model',
+          'recognise',
+          'North gate, pole 2',
+          '',
+          '',
+          '',
+          '6',
+          '12',
+        ],
+        [
+          'LINE3-CAM1',
+          'Example Site',
+          'Example Model',
+          'process_inspection',
+          'Line 3 capper',
+          '',
+          '0.3',
+          '30',
+          '',
+          '',
+        ],
+      ],
+    }) + '\r\n'
+  )
 }

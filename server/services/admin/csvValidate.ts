@@ -139,7 +139,10 @@ export function validateRows(parsed: ParsedCsv, lookups: Lookups): ValidatedRow[
         errors.push({ column: 'asset_tag', message: `The same asset tag as line ${first}.` })
       else firstLineOfTag.set(tag, line)
       if (lookups.existingTags.has(tag))
-        errors.push({ column: 'asset_tag', message: 'A camera with this asset tag exists already.' })
+        errors.push({
+          column: 'asset_tag',
+          message: 'A camera with this asset tag exists already.',
+        })
     }
     const checked = cameraInputSchema.safeParse(draft)
     if (!checked.success) {

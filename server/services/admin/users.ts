@@ -59,7 +59,9 @@ export function createUserAdmin(db: Db, now: () => Date) {
           action: 'user.create',
           entity: 'user',
           entityId: ins.id,
-          detail: { after: { email: input.email, name: input.name, role: input.role, active: true } },
+          detail: {
+            after: { email: input.email, name: input.name, role: input.role, active: true },
+          },
         })
         return ins.id
       })
@@ -88,7 +90,12 @@ export function createUserAdmin(db: Db, now: () => Date) {
             .from(users)
             .where(and(eq(users.role, 'admin'), eq(users.active, true), ne(users.id, id)))
           if (Number(n) === 0)
-            throw fieldError('role', 'Sharpfield needs at least one active administrator.', 409, SETUP_ERRORS.conflict)
+            throw fieldError(
+              'role',
+              'Sharpfield needs at least one active administrator.',
+              409,
+              SETUP_ERRORS.conflict,
+            )
         }
         await tx.update(users).set(change.after).where(eq(users.id, id))
         if (change.after.role !== undefined || change.after.active === false)

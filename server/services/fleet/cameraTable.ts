@@ -44,10 +44,13 @@ const SORT_COLUMN: Record<FleetSort, AnyColumn> = {
 
 async function pageIds(db: Db, q: FleetCameraQuery, cond: SQL | undefined): Promise<number[]> {
   const dir = q.order === 'desc' ? desc : asc
-  // Ties (and the name sorts) fall back to the asset tag, then the id, in the same direction,
-  // so every row has one place and paging never repeats or skips a camera.
-  const order = [dir(SORT_COLUMN[q.sort]), dir(cameras.assetTag), dir(cameras.id)]
-  if (q.sort === 'assetTag') order.splice(1, 1)
+  // Ties fall back to the id (name sorts to the asset tag first) in the same direction, so
+  // every row has one place and paging never repeats or skips a camera. (column, id) orders
+  // follow the cameras indexes, which hold the id, so deep pages need no sort.
+  const byName = q.sort === 'site' || q.sort === 'task' || q.sort === 'model'
+  const order = byName
+    ? [dir(SORT_COLUMN[q.sort]), dir(cameras.assetTag), dir(cameras.id)]
+    : [dir(SORT_COLUMN[q.sort]), dir(cameras.id)]
   let ids = db.select({ id: cameras.id }).from(cameras).$dynamic()
   if (q.sort === 'site') ids = ids.innerJoin(sites, eq(sites.id, cameras.siteId))
   if (q.sort === 'task') ids = ids.innerJoin(tasks, eq(tasks.id, cameras.taskId))

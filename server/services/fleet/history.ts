@@ -85,7 +85,8 @@ export async function checkDetail(db: Db, checkId: string): Promise<CheckDetail>
     .innerJoin(cameraModels, eq(cameraModels.id, cameras.cameraModelId))
     .innerJoin(users, eq(users.id, checks.inspectorId))
     .where(eq(checks.id, checkId))
-  if (!r) throw new AppError(FLEET_ERRORS.checkNotFound, `There is no check with id ${checkId}.`, 404)
+  if (!r)
+    throw new AppError(FLEET_ERRORS.checkNotFound, `There is no check with id ${checkId}.`, 404)
   const ms = await db
     .select()
     .from(measurements)

@@ -86,7 +86,8 @@ export async function fleetSummary(
 ): Promise<FleetSummary> {
   const p = periodOf(f, now)
   const scope = cameraScope(f)
-  const useLatest = strategy === 'latest' || (strategy === 'auto' && p.to.getTime() >= now.getTime())
+  const useLatest =
+    strategy === 'latest' || (strategy === 'auto' && p.to.getTime() >= now.getTime())
   const rows = useLatest
     ? await rowsFromLatest(db, p, scope, now)
     : await rowsFromHistory(db, p, scope, now)

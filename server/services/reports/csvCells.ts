@@ -25,11 +25,7 @@ export function cell(v: Cell): string | number {
 }
 
 /** CSV text for some rows (CRLF line ends), with the header line when asked. */
-export function csvChunk(
-  fields: readonly string[],
-  rows: Cell[][],
-  withHeader: boolean,
-): string {
+export function csvChunk(fields: readonly string[], rows: Cell[][], withHeader: boolean): string {
   if (rows.length === 0 && !withHeader) return ''
   const text = Papa.unparse(
     { fields: [...fields], data: rows.map((r) => r.map(cell)) },

@@ -1,7 +1,11 @@
 // CSV exports of checks and of measurements with the fleet filters applied. Units are in the
 // column names; rows come in capture order, read in batches so memory stays flat.
 import { and, asc, count, eq, inArray } from 'drizzle-orm'
-import { CHECK_CSV_COLUMNS, MAX_EXPORT_ROWS, MEASUREMENT_CSV_COLUMNS } from '../../../shared/schemas/reports'
+import {
+  CHECK_CSV_COLUMNS,
+  MAX_EXPORT_ROWS,
+  MEASUREMENT_CSV_COLUMNS,
+} from '../../../shared/schemas/reports'
 import type { ExportQuery } from '../../../shared/schemas/reports'
 import type { Db } from '../../db/client'
 import { cameraModels, cameras, checks, measurements, sites, tasks, users } from '../../db/schema'
@@ -115,7 +119,11 @@ export async function exportChecksCsv(db: Db, q: ExportQuery, now: Date): Promis
         .where(inArray(measurements.checkId, ids))
         .groupBy(measurements.checkId)
       const byCheck = new Map(counts.map((c) => [c.checkId, Number(c.n)]))
-      yield csvChunk(CHECK_CSV_COLUMNS, batch.map((r) => checkCells(r, byCheck.get(r.k.id) ?? 0)), false)
+      yield csvChunk(
+        CHECK_CSV_COLUMNS,
+        batch.map((r) => checkCells(r, byCheck.get(r.k.id) ?? 0)),
+        false,
+      )
     }
   }
   return {

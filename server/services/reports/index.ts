@@ -127,7 +127,10 @@ export function createReportService(db: Db, now: () => Date) {
         checksLeftOut: Math.max(0, Number(n) - checkRows.length),
         generatedAt: t,
       })
-      const slug = name.replace(/[^A-Za-z0-9]+/g, '-').replace(/^-|-$/g, '').toLowerCase()
+      const slug = name
+        .replace(/[^A-Za-z0-9]+/g, '-')
+        .replace(/^-|-$/g, '')
+        .toLowerCase()
       return {
         fileName: `sharpfield-summary-${slug}-${p.from.toISOString().slice(0, 10)}.pdf`,
         pdf,

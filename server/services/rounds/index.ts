@@ -152,7 +152,12 @@ export function createRoundService(db: Db, now: () => Date) {
         .offset(q.offset)
       const [{ total }] = await db.select({ total: count() }).from(rounds).where(cond)
       const t = now()
-      return { items: rows.map((r) => toRound(r, t)), total: Number(total), limit: q.limit, offset: q.offset }
+      return {
+        items: rows.map((r) => toRound(r, t)),
+        total: Number(total),
+        limit: q.limit,
+        offset: q.offset,
+      }
     },
 
     async assignees(): Promise<RoundAssignee[]> {
@@ -200,7 +205,12 @@ export function createRoundService(db: Db, now: () => Date) {
           entity: 'round',
           entityId: ins.id,
           detail: {
-            after: { name: input.name, assigneeId: input.assigneeId, dueAt: input.dueAt, siteId: input.siteId ?? null },
+            after: {
+              name: input.name,
+              assigneeId: input.assigneeId,
+              dueAt: input.dueAt,
+              siteId: input.siteId ?? null,
+            },
             cameraCount: cameraIds.length,
           },
         })
@@ -229,7 +239,12 @@ export function createRoundService(db: Db, now: () => Date) {
           action: 'round.cancel',
           entity: 'round',
           entityId: id,
-          detail: { before: { status: r.status }, after: { status: 'cancelled' }, reason: reason ?? null, camerasDone: Number(done) },
+          detail: {
+            before: { status: r.status },
+            after: { status: 'cancelled' },
+            reason: reason ?? null,
+            camerasDone: Number(done),
+          },
         })
         await recordChanges(tx, SYNC_ENTITIES.round, [id])
       })

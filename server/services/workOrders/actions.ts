@@ -1,6 +1,6 @@
 // One user action on a work order, inside a transaction: lock the row, check the version the user
 // saw, ask the transition table, write the change with its history, change feed and notices.
-import { and, eq } from 'drizzle-orm'
+import { eq } from 'drizzle-orm'
 import type { WorkOrderAction } from '../../../shared/workOrders/transitions'
 import { TRANSITIONS, decide } from '../../../shared/workOrders/transitions'
 import { WORK_ORDER_ERRORS } from '../../../shared/schemas/workOrders'
@@ -61,7 +61,7 @@ async function checkAssignee(tx: DbOrTx, row: OrderRow, assigneeId: number): Pro
   const [u] = await tx
     .select({ role: users.role, active: users.active, name: users.name })
     .from(users)
-    .where(and(eq(users.id, assigneeId)))
+    .where(eq(users.id, assigneeId))
   if (!u || u.role !== 'maintenance' || !u.active)
     throw new AppError(
       WORK_ORDER_ERRORS.badAssignee,

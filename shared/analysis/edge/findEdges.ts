@@ -4,6 +4,7 @@ import type { EdgeOrientation, EncodingInfo, GreyImage, Roi } from '../types'
 import { downsampleBox } from './downsample'
 import { edgeMap } from './edgeMap'
 import { segmentRoi, type RoiLimits } from './segmentRoi'
+import { edgeScratch } from './scratch'
 import { findSegments } from './segments'
 import { verifyRoi } from './verifyRoi'
 
@@ -67,10 +68,11 @@ export function findEdges(image: GreyImage, options: FindEdgesOptions = {}): Fou
     minAlongPx: options.minAlongPx ?? 32,
   }
   if (image.width < 3 * factor + 8 || image.height < 3 * factor + 8) return []
-  const small = downsampleBox(image, factor)
-  const map = edgeMap(small, options.minRelativeGradient ?? 0.06)
+  const scratch = edgeScratch(Math.floor(image.width / factor) * Math.floor(image.height / factor))
+  const small = downsampleBox(image, factor, scratch.small)
+  const map = edgeMap(small, options.minRelativeGradient ?? 0.06, scratch)
   const minCount = Math.max(6, Math.floor(limits.minAlongPx / factor / 0.7))
-  const { segments, runSize } = findSegments(map, minCount)
+  const { segments, runSize } = findSegments(map, minCount, scratch)
   const verifyLimits = {
     minAngleDeg,
     maxAngleDeg,

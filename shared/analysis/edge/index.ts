@@ -1,6 +1,6 @@
 export { findEdges, type FoundEdge, type FindEdgesOptions } from './findEdges'
 export { downsampleBox } from './downsample'
-export { edgeMap, type EdgeMap } from './edgeMap'
-export { findSegments, type Segment, type SegmentSet } from './segments'
+export { edgeMap, type EdgeMap, type EdgeMapBuffers } from './edgeMap'
+export { findSegments, type Segment, type SegmentSet, type SegmentBuffers } from './segments'
 export { segmentRoi, type RoiLimits, type RoiProposal } from './segmentRoi'
 export { verifyRoi, type VerifiedEdge, type VerifyLimits } from './verifyRoi'

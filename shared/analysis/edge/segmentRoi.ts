@@ -33,7 +33,7 @@ export interface RoiProposal {
 export function segmentRoi(
   seg: Segment,
   map: EdgeMap,
-  runSize: Int32Array,
+  runSize: Uint16Array,
   factor: number,
   frameWidth: number,
   frameHeight: number,

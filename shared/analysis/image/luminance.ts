@@ -28,6 +28,11 @@ export interface LuminanceOptions {
   weights?: LumaWeights
   /** @default { kind: 'srgb' } */
   transfer?: Transfer
+  /**
+   * Caller-owned output of width × height samples, reused between frames of one size: a fresh
+   * frame-sized array costs more in page faults than the conversion itself.
+   */
+  out?: Float32Array
 }
 
 /**
@@ -54,7 +59,12 @@ export function toGreyImage(raw: RawImage, options: LuminanceOptions = {}): Grey
   const w = LUMA_WEIGHTS[weights]
   if (!w) throw new RangeError(`Unknown luma weights "${String(weights)}": use rec709 or rec601.`)
   const lut = linearisationTable(transfer, bitDepth)
-  const out = new Float32Array(pixels)
+  if (options.out && options.out.length !== pixels) {
+    throw new RangeError(
+      `The output buffer holds ${options.out.length} samples, but the image needs ${pixels}.`,
+    )
+  }
+  const out = options.out ?? new Float32Array(pixels)
   if (channels <= 2) {
     for (let i = 0, j = 0; i < pixels; i++, j += channels) out[i] = lut[data[j]]
   } else {

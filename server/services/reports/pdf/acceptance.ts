@@ -36,12 +36,22 @@ export async function acceptancePdf(c: CheckDetail, generatedAt: Date): Promise<
   const w = contentWidth(doc)
   const colour = VERDICT_COLOUR[c.verdict]
   const boxTop = doc.y
-  doc.font('Helvetica-Bold').fontSize(20).fillColor(colour).text(VERDICT_WORD[c.verdict], x0 + 12, boxTop + 10)
+  doc
+    .font('Helvetica-Bold')
+    .fontSize(20)
+    .fillColor(colour)
+    .text(VERDICT_WORD[c.verdict], x0 + 12, boxTop + 10)
   doc.font('Helvetica').fontSize(10).fillColor(INK)
-  const reasons = c.reasons.length ? c.reasons.map((r) => `• ${r.text}`) : ['• No reasons were recorded.']
+  const reasons = c.reasons.length
+    ? c.reasons.map((r) => `• ${r.text}`)
+    : ['• No reasons were recorded.']
   for (const line of reasons) doc.text(line, x0 + 12, doc.y + 2, { width: w - 24 })
   const boxBottom = doc.y + 10
-  doc.lineWidth(1.5).strokeColor(colour).rect(x0, boxTop, w, boxBottom - boxTop).stroke()
+  doc
+    .lineWidth(1.5)
+    .strokeColor(colour)
+    .rect(x0, boxTop, w, boxBottom - boxTop)
+    .stroke()
   doc.y = boxBottom + 8
   doc.strokeColor(INK).lineWidth(1)
 
@@ -63,19 +73,34 @@ export async function acceptancePdf(c: CheckDetail, generatedAt: Date): Promise<
 
   sectionHeading(doc, 'Results')
   const pdOk =
-    c.pixelDensityPxPerM === null ? '' : c.pixelDensityPxPerM >= c.camera.requiredPxPerM ? ' (meets)' : ' (below)'
+    c.pixelDensityPxPerM === null
+      ? ''
+      : c.pixelDensityPxPerM >= c.camera.requiredPxPerM
+        ? ' (meets)'
+        : ' (below)'
   fieldGrid(doc, [
-    ['Median MTF50 (cycles/pixel)', `${fixed(c.medianMtf50CyPx, 3)} (minimum ${fixed(c.camera.minMtf50CyPx, 3)})`],
-    ['Compared with baseline', c.baselineRatio === null ? 'No baseline' : `${(c.baselineRatio * 100).toFixed(0)} % of baseline MTF50`],
-    ['Pixel density (px/m)', `${fixed(c.pixelDensityPxPerM, 0)} of ${fixed(c.camera.requiredPxPerM, 0)} required${pdOk}`],
+    [
+      'Median MTF50 (cycles/pixel)',
+      `${fixed(c.medianMtf50CyPx, 3)} (minimum ${fixed(c.camera.minMtf50CyPx, 3)})`,
+    ],
+    [
+      'Compared with baseline',
+      c.baselineRatio === null
+        ? 'No baseline'
+        : `${(c.baselineRatio * 100).toFixed(0)} % of baseline MTF50`,
+    ],
+    [
+      'Pixel density (px/m)',
+      `${fixed(c.pixelDensityPxPerM, 0)} of ${fixed(c.camera.requiredPxPerM, 0)} required${pdOk}`,
+    ],
     ['Edges measured', String(c.measurements.length)],
   ])
 
   sectionHeading(doc, 'MTF of the measured edges')
   const chartH = 230
-  ensureSpace(doc, chartH + 10)
+  ensureSpace(doc, chartH + 30)
   const chartTop = doc.y
-  drawMtfChart(
+  const chartEnd = drawMtfChart(
     doc,
     c.measurements.map((m, i) => ({
       label: `Edge ${i + 1} (${m.orientation}, MTF50 ${m.mtf50CyPx.toFixed(3)})`,
@@ -84,7 +109,7 @@ export async function acceptancePdf(c: CheckDetail, generatedAt: Date): Promise<
     { x: x0, y: chartTop, width: w, height: chartH, minMtf50CyPx: c.camera.minMtf50CyPx },
   )
   doc.x = x0
-  doc.y = chartTop + chartH + 6
+  doc.y = chartEnd + 6
   if (c.measurements.every((m) => m.mtfCurve.length < 2)) {
     doc.fontSize(9).fillColor(MUTED).text('No MTF curves were recorded with this check.', x0)
     doc.fillColor(INK)
@@ -95,15 +120,15 @@ export async function acceptancePdf(c: CheckDetail, generatedAt: Date): Promise<
     table(
       doc,
       [
-        { header: '#', width: 0.05 },
-        { header: 'Edge', width: 0.13 },
-        { header: 'Angle (°)', width: 0.1, align: 'right' },
-        { header: 'MTF50 (c/px)', width: 0.12, align: 'right' },
-        { header: 'MTF50P (c/px)', width: 0.12, align: 'right' },
-        { header: 'MTF10 (c/px)', width: 0.12, align: 'right' },
-        { header: 'MTF at Nyquist', width: 0.12, align: 'right' },
-        { header: 'Rise 10-90 (px)', width: 0.12, align: 'right' },
-        { header: 'Blur', width: 0.12 },
+        { header: '#', width: 0.04 },
+        { header: 'Edge', width: 0.11 },
+        { header: 'Angle (°)', width: 0.09, align: 'right' },
+        { header: 'MTF50', width: 0.09, align: 'right' },
+        { header: 'MTF50P', width: 0.09, align: 'right' },
+        { header: 'MTF10', width: 0.09, align: 'right' },
+        { header: 'MTF at Nyquist', width: 0.11, align: 'right' },
+        { header: 'Rise 10-90 % (px)', width: 0.13, align: 'right' },
+        { header: 'Blur kernel', width: 0.25 },
       ],
       c.measurements.map((m, i) => [
         String(i + 1),
@@ -121,6 +146,15 @@ export async function acceptancePdf(c: CheckDetail, generatedAt: Date): Promise<
           : '—',
       ]),
     )
+    doc
+      .moveDown(0.3)
+      .fontSize(8)
+      .fillColor(MUTED)
+      .text(
+        'MTF50, MTF50P and MTF10 in cycles/pixel along the edge normal; MTF at Nyquist at 0.5 cycles/pixel.',
+        x0,
+      )
+    doc.fillColor(INK)
   }
 
   if (c.notes) {

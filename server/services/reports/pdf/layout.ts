@@ -23,7 +23,8 @@ export function newPdf(title: string, subject: string): Pdf {
   return doc
 }
 
-export const contentWidth = (doc: Pdf) => doc.page.width - doc.page.margins.left - doc.page.margins.right
+export const contentWidth = (doc: Pdf) =>
+  doc.page.width - doc.page.margins.left - doc.page.margins.right
 
 /** The title band at the top of the first page. */
 export function titleBand(doc: Pdf, title: string, subtitle: string): void {
@@ -67,8 +68,16 @@ export function fieldGrid(doc: Pdf, pairs: [string, string][]): void {
     for (let j = 0; j < 2 && i + j < pairs.length; j++) {
       const [label, value] = pairs[i + j]
       const x = x0 + j * colW
-      doc.font('Helvetica').fontSize(8).fillColor(MUTED).text(label.toUpperCase(), x, y, { width: colW - 12 })
-      doc.font('Helvetica').fontSize(10.5).fillColor(INK).text(value || '—', x, doc.y + 1, { width: colW - 12 })
+      doc
+        .font('Helvetica')
+        .fontSize(8)
+        .fillColor(MUTED)
+        .text(label.toUpperCase(), x, y, { width: colW - 12 })
+      doc
+        .font('Helvetica')
+        .fontSize(10.5)
+        .fillColor(INK)
+        .text(value || '—', x, doc.y + 1, { width: colW - 12 })
       bottom = Math.max(bottom, doc.y)
     }
     doc.y = bottom + 6
@@ -92,20 +101,26 @@ export function table(doc: Pdf, columns: Column[], rows: string[][]): void {
     const y = doc.y
     let x = x0
     doc.font('Helvetica-Bold').fontSize(8.5).fillColor(MUTED)
+    const h = Math.max(
+      ...columns.map((c, i) => doc.heightOfString(c.header, { width: widths[i] - 4 })),
+    )
     columns.forEach((c, i) => {
       doc.text(c.header, x + 2, y, { width: widths[i] - 4, align: c.align ?? 'left' })
       x += widths[i]
     })
-    const yLine = Math.max(doc.y, y + 10) + 2
-    doc.moveTo(x0, yLine).lineTo(x0 + total, yLine).lineWidth(0.5).strokeColor(RULE).stroke()
+    const yLine = y + h + 2
+    doc
+      .moveTo(x0, yLine)
+      .lineTo(x0 + total, yLine)
+      .lineWidth(0.5)
+      .strokeColor(RULE)
+      .stroke()
     doc.y = yLine + 3
   }
   header()
   doc.font('Helvetica').fontSize(9).fillColor(INK)
   for (const row of rows) {
-    const h = Math.max(
-      ...row.map((v, i) => doc.heightOfString(v || '—', { width: widths[i] - 4 })),
-    )
+    const h = Math.max(...row.map((v, i) => doc.heightOfString(v || '—', { width: widths[i] - 4 })))
     if (doc.y + h + 4 > doc.page.height - doc.page.margins.bottom) {
       doc.addPage()
       header()
@@ -135,8 +150,17 @@ export function signatureBlock(doc: Pdf, roles: string[]): void {
     const labels = ['Name', 'Signature', 'Date']
     cols.forEach((c, i) => {
       const cw = c * w - 14
-      doc.moveTo(x, y).lineTo(x + cw, y).lineWidth(0.6).strokeColor(INK).stroke()
-      doc.font('Helvetica').fontSize(8).fillColor(MUTED).text(`${labels[i]} (${role})`, x, y + 3, { width: cw })
+      doc
+        .moveTo(x, y)
+        .lineTo(x + cw, y)
+        .lineWidth(0.6)
+        .strokeColor(INK)
+        .stroke()
+      doc
+        .font('Helvetica')
+        .fontSize(8)
+        .fillColor(MUTED)
+        .text(`${labels[i]} (${role})`, x, y + 3, { width: cw })
       x += c * w
     })
     doc.y = y + 22

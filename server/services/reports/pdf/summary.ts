@@ -78,23 +78,37 @@ export async function summaryPdf(d: SummaryData): Promise<Buffer> {
 
   fieldGrid(doc, [
     ['Cameras in service', String(s.overall.cameras)],
-    ['Checked in the period', `${s.overall.checked} (${pct(s.overall.cameras ? s.overall.checked / s.overall.cameras : null)} of cameras)`],
+    [
+      'Checked in the period',
+      `${s.overall.checked} (${pct(s.overall.cameras ? s.overall.checked / s.overall.cameras : null)} of cameras)`,
+    ],
     ['Pass rate', `${pct(s.overall.passRate)} of checked cameras`],
     ['Marginal / failing', `${s.overall.marginal} / ${s.overall.failing}`],
     ['Overdue now', String(s.overall.overdue)],
     ['Generated', `${d.generatedAt.toISOString().slice(0, 16).replace('T', ' ')} UTC`],
   ])
-  doc.fontSize(8.5).fillColor(MUTED).text(
-    'A camera counts by its latest check in the period. Overdue: the next check date has passed (as of the time generated).',
-  )
+  doc
+    .fontSize(8.5)
+    .fillColor(MUTED)
+    .text(
+      'A camera counts by its latest check in the period. Overdue: the next check date has passed (as of the time generated).',
+    )
   doc.fillColor(INK)
 
   if (s.bySite.length > 1) {
     sectionHeading(doc, 'By site')
-    table(doc, [{ ...COUNT_COLUMNS[0], header: 'Site' }, ...COUNT_COLUMNS.slice(1)], s.bySite.map((x) => countsRow(x.siteName, x)))
+    table(
+      doc,
+      [{ ...COUNT_COLUMNS[0], header: 'Site' }, ...COUNT_COLUMNS.slice(1)],
+      s.bySite.map((x) => countsRow(x.siteName, x)),
+    )
   }
   sectionHeading(doc, 'By task')
-  table(doc, [{ ...COUNT_COLUMNS[0], header: 'Task' }, ...COUNT_COLUMNS.slice(1)], s.byTask.map((x) => countsRow(x.taskName, x)))
+  table(
+    doc,
+    [{ ...COUNT_COLUMNS[0], header: 'Task' }, ...COUNT_COLUMNS.slice(1)],
+    s.byTask.map((x) => countsRow(x.taskName, x)),
+  )
 
   const cameraTable = (title: string, rows: SummaryCameraLine[], detailHeader: string) => {
     sectionHeading(doc, title)
@@ -122,13 +136,13 @@ export async function summaryPdf(d: SummaryData): Promise<Buffer> {
     table(
       doc,
       [
-        { header: 'Date (UTC)', width: 0.15 },
-        { header: 'Asset tag', width: 0.17 },
-        { header: 'Site', width: 0.22 },
+        { header: 'Date (UTC)', width: 0.18 },
+        { header: 'Asset tag', width: 0.15 },
+        { header: 'Site', width: 0.2 },
         { header: 'Mode', width: 0.08 },
-        { header: 'Result', width: 0.11 },
-        { header: 'MTF50 (c/px)', width: 0.11, align: 'right' },
-        { header: 'Inspector', width: 0.16 },
+        { header: 'Result', width: 0.1 },
+        { header: 'MTF50 (c/px)', width: 0.12, align: 'right' },
+        { header: 'Inspector', width: 0.17 },
       ],
       d.checks.map((k) => [
         k.capturedAt.toISOString().slice(0, 16).replace('T', ' '),
@@ -141,7 +155,11 @@ export async function summaryPdf(d: SummaryData): Promise<Buffer> {
       ]),
     )
   if (d.checksLeftOut > 0)
-    doc.moveDown(0.3).fontSize(8.5).fillColor(MUTED).text(`${d.checksLeftOut} more checks are not listed; export the CSV for all of them.`)
+    doc
+      .moveDown(0.3)
+      .fontSize(8.5)
+      .fillColor(MUTED)
+      .text(`${d.checksLeftOut} more checks are not listed; export the CSV for all of them.`)
   doc.fillColor(INK)
 
   signatureBlock(doc, ['reviewed by'])

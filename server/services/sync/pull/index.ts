@@ -123,7 +123,7 @@ export async function pullChanges(
       const full = q.cursor === 0 || q.cursor > Number(top ?? 0)
       return full ? fullPull(tx, deps, user, now) : incrementalPull(tx, deps, user, q, now)
     },
-    { isolationLevel: 'repeatable read', accessMode: 'read only', withConsistentSnapshot: true },
+    { isolationLevel: 'repeatable read', withConsistentSnapshot: true },
   )
   return { ...body, serverTime: now.toISOString() }
 }

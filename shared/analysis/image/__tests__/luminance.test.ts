@@ -62,3 +62,21 @@ describe('luminance from decoded frames', () => {
     ).toThrow(/positive integer/)
   })
 })
+
+describe('caller-owned output buffer', () => {
+  it('writes into the buffer it is given and refuses one of the wrong size', () => {
+    const out = new Float32Array(2)
+    const img = toGreyImage(
+      { width: 2, height: 1, data: new Uint8Array([0, 255]), channels: 1, bitDepth: 8 },
+      { out },
+    )
+    expect(img.data).toBe(out)
+    expect(Array.from(out)).toEqual([0, 1])
+    expect(() =>
+      toGreyImage(
+        { width: 2, height: 1, data: new Uint8Array([0, 255]), channels: 1, bitDepth: 8 },
+        { out: new Float32Array(3) },
+      ),
+    ).toThrow(/holds 3 samples, but the image needs 2/)
+  })
+})

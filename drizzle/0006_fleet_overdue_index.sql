@@ -1,0 +1,1 @@
+CREATE INDEX `cameras_due_mtf_idx` ON `cameras` (`active`,`next_due_at`,`last_mtf50_cy_px`);
