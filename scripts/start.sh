@@ -25,13 +25,13 @@ bash scripts/db.sh start "$DB_PORT" "$DATA_DIR/mariadb"
 npx tsx scripts/migrate.ts
 npx tsx scripts/seed-demo.ts
 
-npx tsx scripts/fake-smtp.ts &
+node --import tsx scripts/fake-smtp.ts &
 PIDS+=($!)
 
 echo "[start] building the client…"
 npx vite build --logLevel warn
 
-npx tsx server/index.ts &
+node --import tsx server/index.ts &
 PIDS+=($!)
 for _ in $(seq 1 100); do
   curl -fs "http://$HOST:$PORT/api/health" >/dev/null 2>&1 && break

@@ -42,18 +42,28 @@ const DB_DOWN_CODES = new Set([
   'ECONNRESET',
   'ETIMEDOUT',
   'EHOSTUNREACH',
+  'EPIPE',
   'PROTOCOL_CONNECTION_LOST',
+  'PROTOCOL_SEQUENCE_TIMEOUT',
   'ER_CON_COUNT_ERROR',
+  'ER_SERVER_SHUTDOWN',
+  'ER_CONNECTION_KILLED',
 ])
 
-function errorCodeOf(err: unknown): string | undefined {
+/**
+ * The database is unreachable or went away mid-request: a known network/shutdown code anywhere in
+ * the `cause` chain, or mysql2's `fatal` flag (a connection that died, e.g. a failed rollback on a
+ * connection closed by a MariaDB restart: "Can't add new command when connection is in closed state").
+ */
+function isDbDown(err: unknown): boolean {
   let cur: unknown = err
-  for (let depth = 0; cur && typeof cur === 'object' && depth < 4; depth++) {
+  for (let depth = 0; cur && typeof cur === 'object' && depth < 5; depth++) {
     const code = (cur as { code?: unknown }).code
-    if (typeof code === 'string') return code
+    if (typeof code === 'string' && DB_DOWN_CODES.has(code)) return true
+    if ((cur as { fatal?: unknown }).fatal === true) return true
     cur = (cur as { cause?: unknown }).cause
   }
-  return undefined
+  return false
 }
 
 /** Maps anything thrown to a status and a body; never exposes a stack or internal message. */
@@ -110,8 +120,7 @@ export function toErrorResponse(err: unknown): {
       },
     }
   }
-  const code = errorCodeOf(err)
-  if (code && DB_DOWN_CODES.has(code)) {
+  if (isDbDown(err)) {
     return {
       status: 503,
       body: {

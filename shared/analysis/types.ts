@@ -105,10 +105,19 @@ export interface FocusSummary {
   brenner: number
 }
 
+/** A region the edge search proposed that the measurement turned down, with the reason. */
+export interface RejectedRegion {
+  roi: Roi
+  /** The measurement's message, e.g. "No usable edge in the region: …". */
+  reason: string
+}
+
 /** Whole-frame result; the CLI prints it with the file name added. */
 export interface FrameAnalysis {
   width: number
   height: number
   edges: EdgeMeasurement[]
+  /** Found regions skipped because they hold no measurable edge (always empty with given regions). */
+  rejected: RejectedRegion[]
   focus: FocusSummary
 }

@@ -24,7 +24,20 @@ export interface PushDeps {
   logger: Logger
 }
 
+const AUDIT_MAX_DEPTH = 20
+
+/** True when `value` nests objects/arrays deeper than `left` levels (stops early). */
+function deeperThan(value: unknown, left: number): boolean {
+  if (value === null || typeof value !== 'object') return false
+  if (left === 0) return true
+  for (const child of Object.values(value)) if (deeperThan(child, left - 1)) return true
+  return false
+}
+
 function summarise(payload: unknown): unknown {
+  // A hostile payload nested thousands deep would overflow JSON.stringify and MariaDB's JSON.
+  if (deeperThan(payload, AUDIT_MAX_DEPTH))
+    return { truncated: `(nested more than ${AUDIT_MAX_DEPTH} levels deep; not kept)` }
   const text = JSON.stringify(payload ?? null)
   return text.length <= 8000 ? payload : { truncated: text.slice(0, 8000) }
 }

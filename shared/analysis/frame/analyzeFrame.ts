@@ -2,7 +2,14 @@ import { findEdges, type FindEdgesOptions } from '../edge/findEdges'
 import { brenner, laplacianVariance, tenengrad } from '../focus'
 import { assertGreyImage, assertRoiInside } from '../image/validate'
 import { measureEdge } from '../mtf/measureEdge'
-import type { EdgeMeasurement, EncodingInfo, FrameAnalysis, GreyImage, Roi } from '../types'
+import type {
+  EdgeMeasurement,
+  EncodingInfo,
+  FrameAnalysis,
+  GreyImage,
+  RejectedRegion,
+  Roi,
+} from '../types'
 
 export type AnalysisStage = 'edges' | 'measure' | 'focus' | 'done'
 
@@ -21,7 +28,8 @@ export interface AnalyzeFrameOptions {
  * Measures a whole frame: the slanted edges (given regions, or those the edge search finds),
  * each with its e-SFR, kernel fit and warnings, and the frame's no-reference focus measures
  * (variance of Laplacian, Tenengrad, Brenner; sums over the frame, replicate border).
- * A given region without a measurable edge throws a RangeError naming the region.
+ * A given region without a measurable edge throws a RangeError naming the region; a found
+ * region the measurement turns down is skipped and listed in `rejected` with the reason.
  */
 export function analyzeFrame(image: GreyImage, options: AnalyzeFrameOptions = {}): FrameAnalysis {
   assertGreyImage(image)
@@ -37,13 +45,18 @@ export function analyzeFrame(image: GreyImage, options: AnalyzeFrameOptions = {}
   }
   progress(0.3, 'measure')
   const edges: EdgeMeasurement[] = []
+  const rejected: RejectedRegion[] = []
   targets.forEach((target, i) => {
     try {
       edges.push(measureEdge(image, target.roi, { orientation: target.orientation, encodingInfo }))
     } catch (error) {
       if (!(error instanceof RangeError)) throw error
-      const { x, y, w, h } = target.roi
-      throw new RangeError(`Region ${x},${y},${w},${h}: ${error.message}`)
+      // A found region is only a candidate: skip it and measure the rest.
+      if (!options.rois) rejected.push({ roi: { ...target.roi }, reason: error.message })
+      else {
+        const { x, y, w, h } = target.roi
+        throw new RangeError(`Region ${x},${y},${w},${h}: ${error.message}`)
+      }
     }
     progress(0.3 + (0.4 * (i + 1)) / targets.length, 'measure')
   })
@@ -54,5 +67,5 @@ export function analyzeFrame(image: GreyImage, options: AnalyzeFrameOptions = {}
     brenner: brenner(image),
   }
   progress(1, 'done')
-  return { width: image.width, height: image.height, edges, focus }
+  return { width: image.width, height: image.height, edges, rejected, focus }
 }

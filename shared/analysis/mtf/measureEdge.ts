@@ -36,6 +36,14 @@ export const MIN_ROI_ACROSS_PX = 16
 export const MIN_ROI_ALONG_PX = 8
 
 /**
+ * Smallest step between the two sides, in units of the region's noise σ, that counts as an
+ * edge [ours]: below it no single row shows the step, so the row-wise edge fit follows noise.
+ * The plateaus of a flat noisy region differ by ≈ σ·√(2/n) ≪ σ; a real edge at SNR 10 (the
+ * low-contrast warning) passes with a wide margin.
+ */
+export const MIN_STEP_TO_NOISE = 3
+
+/**
  * ISO 12233 e-SFR of the slanted edge in `roi` of a linear grey image (DOMAIN.md steps 1–12),
  * with the 10–90 % rise, over/undershoot, flat-area noise, the blur-kernel fit and warnings.
  */
@@ -68,6 +76,14 @@ export function measureEdge(
   const contrast = Math.abs(stats.right - stats.left)
   if (!(contrast > 0))
     throw new RangeError('No usable edge in the region: both sides are equally bright.')
+  // Edge-strength test before the SFR: the scatter of every pixel around its ESF bin is the
+  // noise of a flat region (and close to it on a real edge), whatever the region's size.
+  const regionNoise = flatAreaNoise(samples, fit, esf, 0)
+  if (contrast < MIN_STEP_TO_NOISE * regionNoise) {
+    throw new RangeError(
+      `No usable edge in the region: the step (${contrast.toPrecision(2)}) is less than ${MIN_STEP_TO_NOISE} × the noise (${regionNoise.toPrecision(2)}).`,
+    )
+  }
   const sfr = makeSfr(esf, sign, cosTheta, lsfWindowPx(stats.riseHorizontalPx))
   const summary = summariseSfr(sfr)
 

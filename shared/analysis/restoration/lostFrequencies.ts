@@ -33,7 +33,10 @@ export interface LostFrequencies {
   maxCyPx: number
   /** Intervals where |H| < threshold: detail there cannot come back above the noise. */
   bands: LostBand[]
-  /** Zeros of H inside the bands: there the information is gone whatever the noise. */
+  /**
+   * Zeros of H inside the bands: there the information is gone whatever the noise. Only zeros
+   * with |H| above numerical noise nearby (see ZERO_NEIGHBOURHOOD_FLOOR) are reported.
+   */
   zerosCyPx: number[]
 }
 
@@ -70,6 +73,7 @@ export function lostFrequencies(
   const step = maxCyPx / samples
   const bands: LostBand[] = []
   const zeros: number[] = []
+  const isReal = realZeroTest(H, maxCyPx, threshold)
   let start = -1
   for (let k = 0; k <= samples; k++) {
     const f = k * step
@@ -78,7 +82,7 @@ export function lostFrequencies(
     const last = k === samples
     if (start >= 0 && (!inBand || last)) {
       const end = inBand ? maxCyPx : bisect((g) => !below(g), f - step, f)
-      bands.push(describeBand(H, start, end, zeros))
+      bands.push(describeBand(H, start, end, zeros, isReal))
       start = -1
     }
   }
@@ -95,7 +99,45 @@ function bisect(test: (f: number) => boolean, lo: number, hi: number): number {
   return 0.5 * (lo + hi)
 }
 
-function describeBand(H: TransferFunction, from: number, to: number, zeros: number[]): LostBand {
+/** Relative floor of numerical noise: |H| below 1e-3 × |H(0)| carries no real zero [ours]. */
+export const ZERO_NEIGHBOURHOOD_FLOOR = 1e-3
+
+/**
+ * A zero is real when |H| rises above a floor within maxCyPx/10 on each side (one side at the
+ * ends of the examined range). The floor is 1e-3 × |H(0)| and at least a tenth of the lost-band
+ * threshold [ours]: ripples of a sampled or truncated kernel deep inside a lost band (a Gaussian
+ * cut at ±3σ ripples at |H| ≈ 1e-3, finer sampling errors at ≈ 1e-4) change sign without
+ * leaving it, while a disk's or a box's zeros sit between lobes far above it.
+ */
+function realZeroTest(
+  H: TransferFunction,
+  maxCyPx: number,
+  threshold: number,
+): (zCyPx: number) => boolean {
+  const floor = Math.max(ZERO_NEIGHBOURHOOD_FLOOR * Math.abs(H(0)), 0.1 * threshold)
+  const reach = maxCyPx / 10
+  const n = 32
+  const side = (z: number, dir: number): boolean | null => {
+    const end = Math.min(maxCyPx, Math.max(0, z + dir * reach))
+    if (Math.abs(end - z) < reach / n) return null
+    for (let i = 1; i <= n; i++) if (Math.abs(H(z + ((end - z) * i) / n)) >= floor) return true
+    return false
+  }
+  return (z) => {
+    const left = side(z, -1)
+    const right = side(z, 1)
+    return left !== false && right !== false && (left === true || right === true)
+  }
+}
+
+function describeBand(
+  H: TransferFunction,
+  from: number,
+  to: number,
+  zeros: number[],
+  isReal: (zCyPx: number) => boolean,
+): LostBand {
+  const found: number[] = []
   const n = 256
   let deepest = from
   let min = Infinity
@@ -108,8 +150,8 @@ function describeBand(H: TransferFunction, from: number, to: number, zeros: numb
       deepest = f
     }
     if (i > 0 && Math.sign(v) !== Math.sign(prev) && v !== 0 && prev !== 0) {
-      zeros.push(signChange(H, f - (to - from) / n, f))
-    } else if (v === 0) zeros.push(f)
+      found.push(signChange(H, f - (to - from) / n, f))
+    } else if (v === 0) found.push(f)
     prev = v
   }
   // Refine the deepest point (golden section on |H| around the best grid sample).
@@ -129,7 +171,8 @@ function describeBand(H: TransferFunction, from: number, to: number, zeros: numb
     deepest = refined
   }
   // A magnitude that touches zero without changing sign is a zero too.
-  if (min < 1e-9 && !zeros.some((z) => Math.abs(z - deepest) < 2 * h)) zeros.push(deepest)
+  if (min < 1e-9 && !found.some((z) => Math.abs(z - deepest) < 2 * h)) found.push(deepest)
+  zeros.push(...found.filter(isReal))
   zeros.sort((p, q) => p - q)
   return { fromCyPx: from, toCyPx: to, deepestCyPx: deepest, minMagnitude: min }
 }

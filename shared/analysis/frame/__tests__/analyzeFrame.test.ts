@@ -25,9 +25,10 @@ describe('whole-frame analysis', () => {
     }
   })
 
-  it('returns exactly width, height, edges and the three focus measures', () => {
+  it('returns exactly width, height, edges, rejected regions and the three focus measures', () => {
     const a = analyzeFrame(sharp, { rois: [] })
-    expect(Object.keys(a).sort()).toEqual(['edges', 'focus', 'height', 'width'])
+    expect(Object.keys(a).sort()).toEqual(['edges', 'focus', 'height', 'rejected', 'width'])
+    expect(a.rejected).toEqual([])
     expect(Object.keys(a.focus).sort()).toEqual(['brenner', 'laplacianVariance', 'tenengrad'])
     expect([a.width, a.height]).toEqual([1920, 1080])
   })

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { loadReference } from '../../../../tests/fixtures/reference/load'
+import { psfKernel2d } from '../../psf/kernel2d'
 import { besselJ1, diskOtf } from '../diskOtf'
 import { lostFrequencies } from '../lostFrequencies'
 
@@ -41,6 +42,45 @@ describe('lostFrequencies', () => {
       }
     })
   }
+
+  it('reports the disk zeros 0.609835/R, 1.116557/R, 1.619…/R, 2.120…/R up to Nyquist for R = 5 px', () => {
+    // Source: scipy.special.jn_zeros(1, n) / 2π (restoration.json); Goodman; DOMAIN.md 0.609835/R.
+    const zeros = lostFrequencies(diskOtf(5)).zerosCyPx
+    const expected = ref.diskOtfZerosTimesRadius.filter((z) => z / 5 <= 0.5).map((z) => z / 5)
+    expect(expected).toHaveLength(4)
+    expect(zeros).toHaveLength(4)
+    zeros.forEach((z, i) => expect(z).toBeCloseTo(expected[i], 5))
+  })
+
+  it('reports no zeros for sampled Gaussian kernels, only the band past |H| = 0.1', () => {
+    // A Gaussian's transfer function exp(−2π²σ²f²) [Goodman; DOMAIN.md] never vanishes; sampled
+    // and cut at ±3σ or ±4σ it ripples around |H| ≈ 1e-3 … 1e-4 deep in the lost band, which
+    // used to be reported as zeros (e.g. at 0.481 c/p for σ = 2 px on a 31-px kernel).
+    const bandStart = (sigmaPx: number) =>
+      Math.sqrt(Math.log(10) / (2 * Math.PI ** 2 * sigmaPx ** 2))
+    for (const sigmaPx of [1.5, 2, 3]) {
+      const half = Math.ceil(4 * sigmaPx)
+      const taps = Array.from({ length: 2 * half + 1 }, (_, j) =>
+        Math.exp(-((j - half) ** 2) / (2 * sigmaPx ** 2)),
+      )
+      const lost = lostFrequencies(taps)
+      expect(lost.zerosCyPx).toEqual([])
+      expect(lost.bands).toHaveLength(1)
+      expect(lost.bands[0].fromCyPx).toBeCloseTo(bandStart(sigmaPx), 3)
+    }
+    for (const [sigmaPx, sidePx] of [
+      [2, 31],
+      [3, 31],
+      [4, 25],
+      [7, 43],
+    ]) {
+      for (const nsr of [0.01, 1e-3]) {
+        const lost = lostFrequencies(psfKernel2d('gaussian', sigmaPx, sidePx), { nsr })
+        expect(lost.zerosCyPx).toEqual([])
+        expect(lost.bands).toHaveLength(1)
+      }
+    }
+  })
 
   it('loses nothing to [0.2, 0.6, 0.2] at the default floor, since min |H| = 0.2 (DOMAIN.md cond 5)', () => {
     expect(lostFrequencies([0.2, 0.6, 0.2]).bands).toEqual([])
