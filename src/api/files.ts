@@ -2,6 +2,7 @@
 // They send the session's token; a 401 refreshes the session once through the wrapper (an
 // authenticated JSON call) and tries again.
 import { useAuthStore } from '@/stores/auth'
+import { downloadBlob } from '@/utils/saveBlob'
 import { ApiError, CLIENT_ERROR_CODES, messageForStatus } from './errors'
 import { http, type Query } from './http'
 
@@ -77,14 +78,6 @@ export async function download(
   const res = await authedFetch('GET', path, { query })
   const blob = await res.blob()
   const name = fileNameOf(res, fallbackName)
-  const url = URL.createObjectURL(blob)
-  const a = document.createElement('a')
-  a.href = url
-  a.download = name
-  a.rel = 'noopener'
-  document.body.appendChild(a)
-  a.click()
-  a.remove()
-  setTimeout(() => URL.revokeObjectURL(url), 60_000)
+  downloadBlob(blob, name)
   return name
 }
