@@ -4,11 +4,14 @@ import vue from '@vitejs/plugin-vue'
 import Components from 'unplugin-vue-components/vite'
 import { VantResolver } from '@vant/auto-import-resolver'
 import { VitePWA } from 'vite-plugin-pwa'
+import { dropRemoteFonts } from './scripts/vite/dropRemoteFonts.ts'
 
 // The PWA client. The API is served by the Express server on the same origin;
 // in `vite dev` requests to /api are proxied to it.
 export default defineConfig({
   plugins: [
+    // Vant's icon font falls back to a CDN our Content-Security-Policy blocks; keep the embedded one.
+    dropRemoteFonts(),
     vue(),
     Components({ resolvers: [VantResolver()], dts: 'src/components.d.ts' }),
     VitePWA({

@@ -1,8 +1,10 @@
 import { fileURLToPath, URL } from 'node:url'
 import { defineConfig } from 'vitest/config'
+import vue from '@vitejs/plugin-vue'
 
 // Three projects: unit (beside the code), integration (HTTP + real MariaDB) and
 // e2e (built app in Debian's Chromium). scripts/test.sh sets up what the latter two need.
+// Unit tests may import .vue files (rendered to HTML with vue/server-renderer, no DOM).
 const alias = {
   '@': fileURLToPath(new URL('./src', import.meta.url)),
   '@shared': fileURLToPath(new URL('./shared', import.meta.url)),
@@ -13,10 +15,13 @@ export default defineConfig({
   test: {
     projects: [
       {
+        plugins: [vue()],
         resolve: { alias },
         test: {
           name: 'unit',
           environment: 'node',
+          // Vant's style entries import .css, which Node cannot load: let Vite read Vant.
+          server: { deps: { inline: ['vant'] } },
           include: ['shared/**/__tests__/**/*.test.ts', 'server/**/__tests__/**/*.test.ts', 'src/**/__tests__/**/*.test.ts', 'scripts/**/__tests__/**/*.test.ts'],
           testTimeout: 30_000,
         },

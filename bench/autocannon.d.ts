@@ -32,6 +32,7 @@ declare module 'autocannon' {
     timeouts: number
     non2xx: number
     '2xx': number
+    statusCodeStats?: Record<string, { count: number }>
     duration: number
   }
   function autocannon(options: Options): Promise<Result>

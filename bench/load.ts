@@ -1,6 +1,6 @@
 /**
  * Load on loopback: 200 concurrent connections against sync push, sync pull and the fleet counts.
- *   npm run bench:load [-- --duration 60 --connections 200]
+ *   npm run bench:load [-- --duration 60 --connections 200 --workers 2 --cpu-prof DIR]
  * Boots its own MariaDB (scripts/db.sh, free port, temp dir) and server child, loads the demo
  * scenario, signs in, runs each scenario for --duration seconds and prints requests/s, p50/p99
  * latency and errors. Every push carries two fresh operation ids, so every request is real work.
@@ -19,11 +19,16 @@ import autocannon from 'autocannon'
 import type { Result } from 'autocannon'
 import { sql } from 'drizzle-orm'
 import { createDb } from '../server/db/client'
+import { checkPayload } from '../tests/fixtures/checkPayload'
 
 const { values: args } = parseArgs({
   options: {
     duration: { type: 'string', default: '60' },
     connections: { type: 'string', default: '200' },
+    // Writes a V8 CPU profile of the server to this folder (open it in Chrome's DevTools).
+    'cpu-prof': { type: 'string' },
+    // Server processes (the server's WORKERS setting).
+    workers: { type: 'string', default: '1' },
   },
 })
 const DURATION_S = Number(args.duration)
@@ -57,6 +62,7 @@ const env = {
   STATIC_DIR: join(tmp, 'no-client'),
   JWT_SECRET: `bench-load-secret-${randomUUID()}`,
   DEMO_MODE: 'false',
+  WORKERS: args.workers,
   SMTP_PORT: String(await freePort()),
 }
 const tsx = (script: string) =>
@@ -81,7 +87,8 @@ async function cleanup() {
 }
 
 async function startServer(base: string) {
-  server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+  const profile = args['cpu-prof'] ? ['--cpu-prof', `--cpu-prof-dir=${args['cpu-prof']}`] : []
+  server = spawn(process.execPath, [...profile, '--import', 'tsx', 'server/index.ts'], {
     env,
     stdio: ['ignore', 'pipe', 'pipe'],
   })
@@ -112,44 +119,9 @@ async function signIn(base: string, email: string): Promise<string> {
   return ((await res.json()) as { token: string }).token
 }
 
-/** A small `check.create` operation (two measured edges) with fresh ids. */
+/** A small `check.create` operation (two measured edges, 21-point curves) with fresh ids. */
 function checkOp(cameraId: number) {
-  const curve = Array.from({ length: 21 }, (_, k) => {
-    const f = k / 20
-    return [f, Number(Math.exp(-((f / 0.3) ** 2) * Math.LN2).toFixed(4))]
-  })
-  return {
-    id: randomUUID(),
-    kind: 'check.create',
-    payload: {
-      id: randomUUID(),
-      cameraId,
-      capturedAt: new Date(Date.now() - 60_000).toISOString(),
-      mode: 'day',
-      verdict: 'pass',
-      reasons: [{ code: 'sharpness', text: 'Median MTF50 0.300 c/p meets the minimum.' }],
-      medianMtf50CyPx: 0.3,
-      pixelDensityPxPerM: 320,
-      baselineRatio: null,
-      shareFrame: false,
-      measurements: [0, 1].map((i) => ({
-        id: randomUUID(),
-        roi: { x: 100 + 150 * i, y: 80, w: 120, h: 120 },
-        orientation: i ? 'horizontal' : 'vertical',
-        angleDeg: 5.2,
-        mtf50CyPx: 0.3,
-        mtf50pCyPx: 0.3,
-        mtf10CyPx: 0.61,
-        mtfNyquist: 0.12,
-        rise1090Px: 1.9,
-        overshoot: 0,
-        noise: 0.004,
-        psf: { model: 'gaussian', sigmaPx: 0.62, rmsResidual: 0.003 },
-        mtfCurve: curve,
-        warnings: [],
-      })),
-    },
-  }
+  return { id: randomUUID(), kind: 'check.create', payload: checkPayload(cameraId, {}, 2, 21) }
 }
 
 function summarise(name: string, r: Result) {
@@ -163,10 +135,14 @@ function summarise(name: string, r: Result) {
     errors: r.errors,
     timeouts: r.timeouts,
     non2xx: r.non2xx,
+    statusCodes: Object.fromEntries(
+      Object.entries(r.statusCodeStats ?? {}).map(([code, v]) => [code, v.count]),
+    ),
   }
   console.log(
     `${name.padEnd(22)} ${row.requestsPerS.toFixed(0).padStart(6)} req/s  p50 ${String(row.p50Ms).padStart(5)} ms` +
-      `  p99 ${String(row.p99Ms).padStart(5)} ms  errors ${row.errors}  timeouts ${row.timeouts}  non-2xx ${row.non2xx}`,
+      `  p99 ${String(row.p99Ms).padStart(5)} ms  errors ${row.errors}  timeouts ${row.timeouts}  non-2xx ${row.non2xx}` +
+      (row.non2xx ? `  by status ${JSON.stringify(row.statusCodes)}` : ''),
   )
   return row
 }
@@ -198,7 +174,8 @@ try {
   const opts = { url: base, connections: CONNECTIONS, duration: DURATION_S, timeout: 30 }
   const auth = (token: string) => ({ Authorization: `Bearer ${token}` })
   console.log(
-    `[load] ${CONNECTIONS} connections, ${DURATION_S} s per scenario, load ${loadavg()[0].toFixed(1)}`,
+    `[load] ${CONNECTIONS} connections, ${DURATION_S} s per scenario, ${args.workers} server ` +
+      `process(es), load ${loadavg()[0].toFixed(1)}`,
   )
 
   const push = await autocannon({
@@ -291,6 +268,7 @@ try {
         at: new Date().toISOString(),
         durationS: DURATION_S,
         connections: CONNECTIONS,
+        workers: args.workers,
         loadAverage: loadavg(),
         results: rows,
         verification,

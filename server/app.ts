@@ -9,7 +9,8 @@ import type { Logger } from './errors'
 import { requireAuth, requireRole } from './middleware/auth'
 import { routes } from './routes/table'
 import { createServices } from './services'
-import { createLoginLimiter, createMemoryAttemptStore } from './services/loginLimiter'
+import { createDbAttemptStore } from './services/loginAttemptsDb'
+import { createLoginLimiter } from './services/loginLimiter'
 import type { LoginLimiter } from './services/loginLimiter'
 import { createAccessTokens } from './services/tokens'
 import { registerWorkOrderSync } from './services/workOrders/register'
@@ -50,7 +51,7 @@ export function createApp(deps: AppDeps): Express {
   const logger = deps.logger ?? consoleLogger
   const now = deps.now ?? (() => new Date())
   const tokens = createAccessTokens(deps.jwtKey)
-  const limiter = deps.loginLimiter ?? createLoginLimiter(createMemoryAttemptStore())
+  const limiter = deps.loginLimiter ?? createLoginLimiter(createDbAttemptStore(db))
 
   const app = express()
   app.disable('x-powered-by')

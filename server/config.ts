@@ -1,3 +1,4 @@
+import { availableParallelism } from 'node:os'
 import { resolve } from 'node:path'
 import { z } from 'zod'
 
@@ -43,6 +44,11 @@ const envSchema = z.object({
   // (which may show people or plates) are kept. Region crops are kept with their check.
   UPLOAD_MAX_MB: z.coerce.number().positive().max(200).default(25),
   FRAME_RETENTION_DAYS: z.coerce.number().int().min(1).max(3650).default(30),
+  // Server processes on this machine ('auto' = one per CPU core) and database connections each.
+  WORKERS: z
+    .union([z.literal('auto'), z.coerce.number().int().min(1).max(64)])
+    .default(1),
+  DB_POOL_SIZE: z.coerce.number().int().min(1).max(500).default(10),
   // Pull leaves out changes younger than this, so a transaction still committing is never skipped.
   SYNC_SETTLE_MS: z.coerce.number().int().min(0).max(60_000).default(1000),
 })
@@ -71,6 +77,10 @@ export interface Config {
   uploads: UploadConfig
   /** See SYNC_SETTLE_MS. */
   syncSettleMs: number
+  /** Server processes to run (node:cluster when more than one). */
+  workers: number
+  /** Database connections per server process. */
+  dbPoolSize: number
 }
 
 export interface UploadConfig {
@@ -128,6 +138,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, cwd = process.c
       frameRetentionDays: e.FRAME_RETENTION_DAYS,
     },
     syncSettleMs: e.SYNC_SETTLE_MS,
+    workers: e.WORKERS === 'auto' ? availableParallelism() : e.WORKERS,
+    dbPoolSize: e.DB_POOL_SIZE,
   }
 }
 

@@ -1,6 +1,8 @@
 // Boot: config → database pool → app → listen; graceful shutdown on SIGTERM/SIGINT.
+import cluster from 'node:cluster'
 import type { AddressInfo } from 'node:net'
 import { createApp } from './app'
+import { superviseWorkers } from './cluster'
 import { ConfigError, loadConfig, redactUrl } from './config'
 import { createDb } from './db/client'
 import { consoleLogger } from './errors'
@@ -12,7 +14,12 @@ import { createStorage } from './storage'
 async function main(): Promise<void> {
   const config = loadConfig()
   const jwtKey = loadJwtKey(config.jwtSecret, config.dataDir)
-  const handle = createDb(config.databaseUrl)
+  if (config.workers > 1 && cluster.isPrimary) {
+    // The key file is created here, once, before the workers read it.
+    superviseWorkers({ workers: config.workers })
+    return
+  }
+  const handle = createDb(config.databaseUrl, { connectionLimit: config.dbPoolSize })
   const app = createApp({ config, db: handle.db, jwtKey })
 
   const server = app.listen(config.port, config.host)
@@ -21,7 +28,8 @@ async function main(): Promise<void> {
     server.once('error', reject)
   })
   const { port } = server.address() as AddressInfo
-  console.log(`Sharpfield listening on http://${config.host}:${port}`)
+  const who = cluster.isWorker ? ` (worker ${process.pid})` : ''
+  console.log(`Sharpfield listening on http://${config.host}:${port}${who}`)
   console.log(
     `  database ${redactUrl(config.databaseUrl)}, demo mode ${config.demoMode ? 'on' : 'off'}`,
   )

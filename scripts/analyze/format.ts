@@ -1,5 +1,10 @@
 import { EDGE_WARNING_MESSAGES } from '../../shared/analysis/mtf/warnings'
-import type { EdgeMeasurement, FrameAnalysis } from '../../shared/analysis/types'
+import type {
+  EdgeMeasurement,
+  FrameAnalysis,
+  RejectedRegion,
+  Roi,
+} from '../../shared/analysis/types'
 
 const round = (v: number | null, digits = 6) =>
   v === null || !Number.isFinite(v) ? null : Number(v.toFixed(digits))
@@ -45,14 +50,32 @@ export function jsonLine(file: string, a: FrameAnalysis): string {
 
 const fmt = (v: number | null, digits: number) => (v === null ? '—' : v.toFixed(digits))
 
-/** A readable summary of one file: header line, one table row per edge, warnings spelled out. */
+const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`
+const roiText = (r: Roi) => `${r.x},${r.y},${r.w},${r.h}`
+
+/** The found regions the measurement turned down, each with its reason (empty when none). */
+function rejectedLines(rejected: RejectedRegion[]): string[] {
+  if (rejected.length === 0) return []
+  const width = Math.max(...rejected.map((r) => roiText(r.roi).length))
+  return [
+    `  not measured: ${plural(rejected.length, 'found region')} turned down`,
+    ...rejected.map((r) => `    ${roiText(r.roi).padEnd(width)}  ${r.reason}`),
+  ]
+}
+
+/**
+ * A readable summary of one file: header line, one table row per edge, warnings spelled out,
+ * then the found regions that were not measured and why.
+ */
 export function tableText(file: string, a: FrameAnalysis): string {
+  const turnedDown = a.rejected.length ? `, ${a.rejected.length} turned down` : ''
   const lines = [
-    `${file}: ${a.width} × ${a.height} px, ${a.edges.length} edge${a.edges.length === 1 ? '' : 's'}`,
+    `${file}: ${a.width} × ${a.height} px, ${plural(a.edges.length, 'edge')}${turnedDown}`,
     `  focus: Laplacian variance ${a.focus.laplacianVariance.toPrecision(4)}, Tenengrad ${a.focus.tenengrad.toPrecision(4)}, Brenner ${a.focus.brenner.toPrecision(4)}`,
   ]
   if (a.edges.length === 0) {
     lines.push('  no usable slanted edge found (give regions with --roi x,y,w,h)')
+    lines.push(...rejectedLines(a.rejected))
     return lines.join('\n')
   }
   const header = [
@@ -70,7 +93,7 @@ export function tableText(file: string, a: FrameAnalysis): string {
   ]
   const rows = a.edges.map((e, i) => [
     String(i + 1),
-    `${e.roi.x},${e.roi.y},${e.roi.w},${e.roi.h}`,
+    roiText(e.roi),
     e.orientation,
     e.angleDeg.toFixed(2),
     fmt(e.mtf50, 4),
@@ -96,5 +119,6 @@ export function tableText(file: string, a: FrameAnalysis): string {
     for (const w of e.warnings) lines.push(`  #${i + 1} ${w}: ${EDGE_WARNING_MESSAGES[w]}`)
   })
   lines.push('  (frequencies in cycles/pixel along the edge normal; Nyquist = 0.5)')
+  lines.push(...rejectedLines(a.rejected))
   return lines.join('\n')
 }

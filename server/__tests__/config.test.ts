@@ -1,3 +1,4 @@
+import { availableParallelism } from 'node:os'
 import { describe, expect, it } from 'vitest'
 import { ConfigError, loadConfig, redactUrl } from '../config'
 
@@ -20,6 +21,18 @@ describe('configuration from the environment', () => {
     expect(c.demoMode).toBe(true)
     expect(c.jwtSecret).toBeUndefined()
     expect(c.trustProxy).toBe(false)
+    expect(c.workers).toBe(1)
+    expect(c.dbPoolSize).toBe(10)
+  })
+
+  it('runs one worker per core for WORKERS=auto and refuses a worker count of 0', () => {
+    expect(loadConfig({ WORKERS: 'auto' }).workers).toBe(availableParallelism())
+    expect(loadConfig({ WORKERS: '3', DB_POOL_SIZE: '4' })).toMatchObject({
+      workers: 3,
+      dbPoolSize: 4,
+    })
+    expect(() => loadConfig({ WORKERS: '0' })).toThrow(/WORKERS/)
+    expect(() => loadConfig({ WORKERS: 'many' })).toThrow(/WORKERS/)
   })
 
   it('builds the database URL from DB_* and lets DATABASE_URL override it', () => {

@@ -79,6 +79,22 @@ export const refreshTokens = mysqlTable(
   ],
 )
 
+// Failed sign-ins per (account, client address), shared by every server process and replica
+// (services/loginAttemptsDb.ts). Rows older than the limiter's window are pruned.
+export const loginFailures = mysqlTable(
+  'login_failures',
+  {
+    id: bigint({ mode: 'number', unsigned: true }).autoincrement().primaryKey(),
+    // Lower-cased e-mail, '|', client address: at most 254 + 1 + 45 characters.
+    attemptKey: varchar({ length: 320 }).notNull(),
+    at: when().notNull(),
+  },
+  (t) => [
+    index('login_failures_key_idx').on(t.attemptKey, t.at),
+    index('login_failures_at_idx').on(t.at),
+  ],
+)
+
 export const sites = mysqlTable('sites', {
   id: int().autoincrement().primaryKey(),
   name: varchar({ length: 120 }).notNull().unique(),

@@ -1,15 +1,19 @@
 import { and, asc, count, desc, eq, like, lt, or, sql } from 'drizzle-orm'
 import type { SQL } from 'drizzle-orm'
+import { alias } from 'drizzle-orm/mysql-core'
 import type {
   Camera,
   CameraDetail,
   CameraList,
   CameraListQuery,
 } from '../../shared/schemas/cameras'
-import type { Db } from '../db/client'
-import { cameraModels, cameras, sites, tasks } from '../db/schema'
+import type { Db, DbOrTx } from '../db/client'
+import { cameraModels, cameras, checks, sites, tasks } from '../db/schema'
 import { AppError } from '../errors'
 import { toCameraModel, toTask } from './catalog'
+
+/** The camera's baseline check, joined for its median MTF50. */
+const baselineCheck = alias(checks, 'baseline_check')
 
 export const cameraColumns = {
   camera: cameras,
@@ -19,6 +23,24 @@ export const cameraColumns = {
   taskRequiredPxPerM: tasks.requiredPxPerM,
   taskMinMtf50CyPx: tasks.minMtf50CyPx,
   taskCheckIntervalDays: tasks.checkIntervalDays,
+  baselineMtf50CyPx: baselineCheck.medianMtf50CyPx,
+}
+
+/** Joins a camera to its baseline check (left join: most cameras start without one). */
+export const baselineJoin = [baselineCheck, eq(baselineCheck.id, cameras.baselineCheckId)] as const
+
+/**
+ * Cameras with their site, model, task and baseline check: the query behind the camera list
+ * and the sync pull, so both answer the same camera record.
+ */
+export function selectCameras(db: DbOrTx) {
+  return db
+    .select(cameraColumns)
+    .from(cameras)
+    .innerJoin(sites, eq(sites.id, cameras.siteId))
+    .innerJoin(cameraModels, eq(cameraModels.id, cameras.cameraModelId))
+    .innerJoin(tasks, eq(tasks.id, cameras.taskId))
+    .leftJoin(...baselineJoin)
 }
 
 export type CameraRow = {
@@ -29,6 +51,7 @@ export type CameraRow = {
   taskRequiredPxPerM: number
   taskMinMtf50CyPx: number
   taskCheckIntervalDays: number
+  baselineMtf50CyPx: number | null
 }
 
 const iso = (d: Date | null) => (d ? d.toISOString() : null)
@@ -56,6 +79,7 @@ export function toCamera(r: CameraRow, now: Date): Camera {
     focalLengthMm: c.focalLengthMm,
     targetDistanceM: c.targetDistanceM,
     baselineCheckId: c.baselineCheckId,
+    baselineMtf50CyPx: c.baselineCheckId ? r.baselineMtf50CyPx : null,
     state: c.state,
     lastCheckId: c.lastCheckId,
     lastCheckAt: iso(c.lastCheckAt),
@@ -78,14 +102,6 @@ const sortColumns = {
 } as const
 
 export function createCameraService(db: Db, now: () => Date = () => new Date()) {
-  const base = () =>
-    db
-      .select(cameraColumns)
-      .from(cameras)
-      .innerJoin(sites, eq(sites.id, cameras.siteId))
-      .innerJoin(cameraModels, eq(cameraModels.id, cameras.cameraModelId))
-      .innerJoin(tasks, eq(tasks.id, cameras.taskId))
-
   return {
     async list(q: CameraListQuery): Promise<CameraList> {
       const t = now()
@@ -103,7 +119,7 @@ export function createCameraService(db: Db, now: () => Date = () => new Date()) 
       }
       const cond = where.length ? and(...where) : undefined
       const dir = q.order === 'desc' ? desc : asc
-      const rows = await base()
+      const rows = await selectCameras(db)
         .where(cond)
         .orderBy(dir(sortColumns[q.sort]), asc(cameras.id))
         .limit(q.limit)
@@ -128,6 +144,7 @@ export function createCameraService(db: Db, now: () => Date = () => new Date()) 
         .innerJoin(sites, eq(sites.id, cameras.siteId))
         .innerJoin(cameraModels, eq(cameraModels.id, cameras.cameraModelId))
         .innerJoin(tasks, eq(tasks.id, cameras.taskId))
+        .leftJoin(...baselineJoin)
         .where(eq(cameras.id, id))
         .limit(1)
       if (!row) throw new AppError('camera.not_found', `There is no camera with id ${id}.`, 404)

@@ -35,6 +35,15 @@ async function existingCheck(tx: DbOrTx, id: string) {
   return row
 }
 
+/** The camera's task's check interval (cameras without their own interval follow their task). */
+async function taskIntervalDays(tx: DbOrTx, taskId: string): Promise<number> {
+  const [task] = await tx
+    .select({ days: tasks.checkIntervalDays })
+    .from(tasks)
+    .where(eq(tasks.id, taskId))
+  return task?.days ?? 365
+}
+
 function sameCheckOrReject(
   row: { cameraId: number; inspectorId: number },
   p: CheckCreatePayload,
@@ -91,10 +100,6 @@ export async function recordCheck(
     )
   }
   const camera = await lockCamera(tx, p.cameraId)
-  const found = await existingCheck(tx, p.id)
-  if (found) return sameCheckOrReject(found, p, ctx)
-
-  const [task] = await tx.select().from(tasks).where(eq(tasks.id, camera.taskId))
   const round = await recordRoundCheck.validate(tx, p, ctx)
 
   const row = {
@@ -114,13 +119,15 @@ export async function recordCheck(
     isBaseline: false,
     shareFrame: p.shareFrame,
     deviceId: ctx.deviceId,
+    createdAt: ctx.now,
     syncedAt: ctx.now,
   }
   try {
     await tx.insert(checks).values(row)
   } catch (err) {
     if (!isDuplicateEntry(err, 'PRIMARY')) throw err
-    // Another operation stored the same check a moment ago (it committed while we waited).
+    // The check id is stored already: sent before under another operation id, or by another
+    // operation that committed while this one waited for the camera's lock.
     const raced = await existingCheck(tx, p.id)
     if (raced) return sameCheckOrReject(raced, p, ctx)
     throw err
@@ -138,7 +145,7 @@ export async function recordCheck(
   }
   if (round.roundId !== null) await recordRoundCheck.link(tx, round.roundId, p)
 
-  const interval = camera.checkIntervalDays ?? task?.checkIntervalDays ?? 365
+  const interval = camera.checkIntervalDays ?? (await taskIntervalDays(tx, camera.taskId))
   const status = cameraStatusAfterCheck(camera, row, interval, ctx.now)
   const changed = Object.keys(status.set).length > 0
   if (changed) {
@@ -152,9 +159,8 @@ export async function recordCheck(
     : camera
 
   await recordConflicts(tx, p, ctx, camera, status.isLatest, round.dropped)
-  const [stored] = await tx.select().from(checks).where(eq(checks.id, p.id))
   await runCheckHooks(tx, {
-    check: stored,
+    check: row,
     cameraBefore: camera,
     cameraAfter,
     isLatest: status.isLatest,

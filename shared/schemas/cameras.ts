@@ -22,7 +22,10 @@ export const cameraListQuerySchema = z.object({
 })
 export type CameraListQuery = z.infer<typeof cameraListQuerySchema>
 
-/** A camera as listed: thresholds are the effective values (override or task default). */
+/**
+ * A camera as listed (and as pulled by sync): thresholds are the effective values (override or
+ * task default); the baseline's MTF50 lets a device judge drift offline.
+ */
 export const cameraSchema = z.object({
   id: z.number().int().positive(),
   assetTag: z.string(),
@@ -44,6 +47,8 @@ export const cameraSchema = z.object({
   focalLengthMm: z.number().nullable(),
   targetDistanceM: z.number().nullable(),
   baselineCheckId: z.string().nullable(),
+  /** The baseline check's median MTF50 (null: no baseline, or it measured nothing). */
+  baselineMtf50CyPx: z.number().nullable(),
   state: cameraStateSchema,
   lastCheckId: z.string().nullable(),
   lastCheckAt: isoDateTime.nullable(),

@@ -75,10 +75,8 @@ export const pullQuerySchema = z.object({
 })
 export type PullQuery = z.infer<typeof pullQuerySchema>
 
-/** A camera as pulled: the listed camera plus its baseline's MTF50 (for offline verdicts). */
-export const syncCameraSchema = cameraSchema.extend({
-  baselineMtf50CyPx: z.number().nullable(),
-})
+/** A camera as pulled: the same record as GET /api/cameras lists, baseline MTF50 included. */
+export const syncCameraSchema = cameraSchema
 export type SyncCamera = z.infer<typeof syncCameraSchema>
 
 export const syncRoundSchema = z.object({

@@ -1,6 +1,7 @@
 // The text inside a target's QR code: `sharpfield-target:v1;id=<id>;w=<mm>;h=<mm>`.
 // The printed width and height let a frame of the target be scaled without a ruler: the layout
 // is a pure function of the sheet size, so the square side follows from w and h.
+import { splitPayload } from './payloadFields'
 
 export const TARGET_PAYLOAD_PREFIX = 'sharpfield-target:v1'
 const ID_PATTERN = /^[A-Za-z0-9][A-Za-z0-9_-]{2,31}$/
@@ -44,18 +45,10 @@ export function encodeTargetPayload(payload: TargetPayload): string {
 /** Parses a scanned code. Unknown keys are ignored (later versions may add some). */
 export function decodeTargetPayload(text: string): TargetPayload {
   if (typeof text !== 'string') throw new TypeError('A target code must be text.')
-  const [prefix, ...fields] = text.trim().split(';')
-  if (prefix !== TARGET_PAYLOAD_PREFIX) {
+  if (text.trim().split(';')[0] !== TARGET_PAYLOAD_PREFIX) {
     throw new RangeError('This code is not a Sharpfield target (version 1) code.')
   }
-  const values = new Map<string, string>()
-  for (const field of fields) {
-    const eq = field.indexOf('=')
-    if (eq <= 0) throw new RangeError(`The target code has a malformed field "${field}".`)
-    const key = field.slice(0, eq)
-    if (values.has(key)) throw new RangeError(`The target code repeats the field "${key}".`)
-    values.set(key, field.slice(eq + 1))
-  }
+  const values = splitPayload(text, 'target code').fields
   const id = values.get('id')
   const w = values.get('w')
   const h = values.get('h')

@@ -22,6 +22,14 @@ export interface CachedCatalog extends Catalog {
   skipped: number
 }
 
+/**
+ * A saved camera. Copies saved before records carried the baseline's MTF50 read it as unknown
+ * (null) instead of being dropped, so an update never empties an offline device's list.
+ */
+const savedCameraSchema = cameraSchema.extend({
+  baselineMtf50CyPx: cameraSchema.shape.baselineMtf50CyPx.default(null),
+})
+
 function keepValid<T>(rows: unknown[], schema: ZodType<T>): { valid: T[]; skipped: number } {
   const valid: T[] = []
   for (const row of rows) {
@@ -60,7 +68,7 @@ export async function loadCatalog(db: SharpfieldDb): Promise<CachedCatalog> {
       db.meta.get(META_KEYS.catalogUserId),
     ])
     const s = keepValid(sites, siteSchema)
-    const c = keepValid(cameras, cameraSchema)
+    const c = keepValid(cameras, savedCameraSchema)
     const t = keepValid(tasks, taskSchema)
     return {
       sites: s.valid,
@@ -75,7 +83,7 @@ export async function loadCatalog(db: SharpfieldDb): Promise<CachedCatalog> {
 
 export async function loadCachedCamera(db: SharpfieldDb, id: number): Promise<Camera | null> {
   const row = await db.cameras.get(id)
-  const parsed = cameraSchema.safeParse(row)
+  const parsed = savedCameraSchema.safeParse(row)
   return parsed.success ? parsed.data : null
 }
 

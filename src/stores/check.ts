@@ -7,6 +7,7 @@ import { buildReport, type CheckContext } from '@/components/check/logic/report'
 import { lineLengthPx, type ScaleMeasure } from '@/components/check/logic/density'
 import type { RegionState } from '@/components/check/logic/regionRules'
 import { buildBundle } from '@/components/check/logic/bundle'
+import { restorationRequestOf } from '@/components/check/logic/restorationSource'
 import {
   AnalysisCancelled,
   spawnAnalysisWorker,
@@ -191,13 +192,7 @@ export const useCheckStore = defineStore('check', () => {
     return run('restoring', async () => {
       try {
         restoration.value = await queue(() =>
-          worker.restorePreview({
-            roi: m.roi,
-            model: m.psf.model,
-            sizePx: (m.psf.model === 'gaussian' ? m.psf.sigmaPx : m.psf.radiusPx) ?? 1,
-            method,
-            noiseSigma: m.noise > 0 ? m.noise : undefined,
-          }),
+          worker.restorePreview(restorationRequestOf(m, m.roi, method)),
         )
       } catch (e) {
         if (e instanceof AnalysisCancelled) throw e

@@ -17,6 +17,7 @@ import {
   toCheckCreatePayload,
   type CheckBundle,
 } from '@/db/checkRecords'
+import { loadCachedCamera } from '@/db/catalogCache'
 import type { CameraHistoryRecord, CheckRecord } from '@/db/checks'
 import { db } from '@/db/database'
 import { enqueue, outboxTables } from '@/db/outbox'
@@ -189,11 +190,10 @@ export const useChecksStore = defineStore('checks', () => {
     const id = camera.baselineCheckId ?? s.server?.baseline?.checkId ?? null
     const known = items.find((i) => i.id === id)?.medianMtf50CyPx ?? s.server?.baseline?.mtf50CyPx
     if (known != null) return { checkId: id, mtf50CyPx: known }
-    // A camera record pulled by sync carries its baseline's MTF50 (syncCameraSchema).
-    const raw = (await db.cameras.get(camera.id)) as
-      (Camera & { baselineMtf50CyPx?: unknown }) | undefined
-    const pulled = typeof raw?.baselineMtf50CyPx === 'number' ? raw.baselineMtf50CyPx : null
-    return { checkId: id, mtf50CyPx: pulled }
+    // A camera record (listed or pulled) carries its baseline's MTF50; the device's copy is the
+    // newest a sync pull left.
+    const saved = await loadCachedCamera(db, camera.id)
+    return { checkId: id, mtf50CyPx: saved?.baselineMtf50CyPx ?? camera.baselineMtf50CyPx ?? null }
   }
 
   /** Median MTF50 of the newest check in a mode. */

@@ -27,15 +27,23 @@ export interface TestBrowser {
   close(): Promise<void>
 }
 
+export interface LaunchOptions {
+  /** Extra Chromium flags (e.g. a fake camera), after the usual ones. */
+  args?: readonly string[]
+}
+
 /** A phone-sized window (390 × 844) unless told otherwise. */
-export async function launchBrowser(viewport = { width: 390, height: 844 }): Promise<TestBrowser> {
+export async function launchBrowser(
+  viewport = { width: 390, height: 844 },
+  options: LaunchOptions = {},
+): Promise<TestBrowser> {
   const userDataDir = mkdtempSync(join(tmpdir(), 'sf-chromium-'))
   mkdirSync(SCREENSHOT_DIR, { recursive: true })
   const context = await chromium.launchPersistentContext(userDataDir, {
     executablePath: process.env.SHARPFIELD_CHROMIUM ?? '/usr/bin/chromium',
     headless: true,
     viewport,
-    args: CHROMIUM_ARGS,
+    args: [...CHROMIUM_ARGS, ...(options.args ?? [])],
   })
   const page = context.pages()[0] ?? (await context.newPage())
   return {

@@ -1,6 +1,7 @@
 // The field check with the network off: an inspector opens a due camera, imports a frame of a
-// blurred target, adjusts a region, gets a verdict, saves, reloads, and finds the check in the
-// camera's history — all from the device. Screenshots of each step: test-results/e2e/check-*.png.
+// blurred target, adjusts a region, gets a verdict, saves, reloads, sees the saved check's
+// restoration preview again and finds the check in the camera's history — all from the device.
+// Screenshots of each step: test-results/e2e/check-*.png.
 import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { BLURRED_TARGET } from '../fixtures/frames/render'
@@ -102,6 +103,8 @@ describe('a check made offline', () => {
     )
     await page.locator('[data-test="restoration"]').scrollIntoViewIfNeeded()
     await browser.screenshot('check-6-restoration')
+    const lostWhenChecked = await page.locator('[data-test="lost-frequencies"] li').allInnerTexts()
+    expect(lostWhenChecked.length).toBeGreaterThan(0)
 
     await page.locator('[data-test="save-check"]').click()
     await page.waitForURL(/\/checks\/[0-9a-f-]{36}$/)
@@ -113,6 +116,17 @@ describe('a check made offline', () => {
     await page.reload()
     await page.locator('[data-test="verdict-word"]').waitFor()
     expect(await page.locator('[data-test="verdict-word"]').innerText()).toBe('Fail')
+    // The saved check offers the same restoration preview, made from the region kept here.
+    await page.locator('[data-test="restore-button"]').click()
+    await page.locator('[data-test="lost-frequencies"]').waitFor({ timeout: 60_000 })
+    expect(await page.locator('[data-test="restoration-label"]').innerText()).toContain(
+      'Illustrative — not evidential',
+    )
+    expect(await page.locator('[data-test="lost-frequencies"] li').allInnerTexts()).toEqual(
+      lostWhenChecked,
+    )
+    await page.locator('[data-test="restoration"]').scrollIntoViewIfNeeded()
+    await browser.screenshot('check-7b-saved-restoration')
     await page.goto(`${baseUrl}${cameraPath}`)
     const saved = page.locator(`[data-test="history-row"][data-check-id="${checkId}"]`)
     await saved.waitFor()
@@ -131,6 +145,12 @@ describe('a check made offline', () => {
       /Fail\s+checked here .* waiting to sync/,
     )
     await browser.screenshot('check-9-rounds')
+
+    // A check this device does not hold (made on another phone) says where its pixels are.
+    await page.goto(`${baseUrl}/checks/0b6f7a52-9d7e-4c1a-8f3b-2e5d6c7a8b9c`)
+    expect(await page.locator('[data-test="check-not-on-device"]').innerText()).toMatch(
+      /restoration preview are kept only on the device where it was made/,
+    )
     expect(uncaught).toEqual([])
     await context.setOffline(false)
   })

@@ -6,8 +6,8 @@ import type { TestUser } from './helpers/app'
 import { createTestDatabase } from './helpers/db'
 import type { TestDatabase } from './helpers/db'
 
-// Ten failed sign-ins for one account from one address within 15 minutes lock that pair out
-// (issue 2); other accounts and other addresses keep working. The test app trusts the loopback
+// Ten failed sign-ins for one account from one address within 15 minutes lock that pair out,
+// counted in the database so every server process sees them; other accounts and other addresses keep working. The test app trusts the loopback
 // proxy so X-Forwarded-For can stand for different client addresses.
 
 let tdb: TestDatabase
@@ -63,5 +63,22 @@ describe('sign-in rate limit', () => {
     const ghost = { email: 'ghost@sharpfield.test' }
     for (let i = 0; i < 10; i++) expect((await login(ghost, 'x', '203.0.113.11')).status).toBe(401)
     expect((await login(ghost, 'x', '203.0.113.11')).status).toBe(429)
+  })
+
+  it('counts failures across server processes sharing the database', async () => {
+    // Two apps on one database stand for two workers or replicas behind a load balancer.
+    const other = makeApp(tdb.db, { config: testConfig({ trustProxy: 'loopback' }) }).app
+    const user = await createUser(tdb.db, 'inspector')
+    const via = (a: Express, password: string) =>
+      request(a)
+        .post('/api/auth/login')
+        .set('X-Forwarded-For', '203.0.113.21')
+        .send({ email: user.email, password })
+    for (let i = 0; i < 5; i++) {
+      expect((await via(app, 'wrong-password')).status).toBe(401)
+      expect((await via(other, 'wrong-password')).status).toBe(401)
+    }
+    expect((await via(app, user.password)).status).toBe(429)
+    expect((await via(other, user.password)).status).toBe(429)
   })
 })

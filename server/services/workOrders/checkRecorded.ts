@@ -29,8 +29,7 @@ export interface HookContext {
 }
 
 export type CheckOutcome =
-  | { kind: 'none' }
-  | { kind: 'opened' | 'added' | 'closed' | 'returned'; workOrderId: number }
+  { kind: 'none' } | { kind: 'opened' | 'added' | 'closed' | 'returned'; workOrderId: number }
 
 const DAY_MS = 86_400_000
 
@@ -38,20 +37,30 @@ export function reasonsText(reasons: readonly VerdictReason[]): string {
   return reasons.map((r) => r.text).join(' ') || 'The check did not pass.'
 }
 
-/** Locks the camera (serialising work orders per camera) and returns its open order, if any. */
-async function lockOpenOrder(tx: DbOrTx, cameraId: number) {
-  const [camera] = await tx
-    .select({ id: cameras.id, assetTag: cameras.assetTag, locationText: cameras.locationText, taskId: cameras.taskId })
-    .from(cameras)
-    .where(eq(cameras.id, cameraId))
-    .for('update')
-  if (!camera) throw new Error(`check for unknown camera ${cameraId}`)
+/** The camera's open order, locked; the caller already holds the camera's row lock. */
+async function lockedOpenOrder(tx: DbOrTx, cameraId: number): Promise<OrderRow | undefined> {
   const [open] = await tx
     .select()
     .from(workOrders)
     .where(and(eq(workOrders.cameraId, cameraId), inArray(workOrders.status, [...ACTIVE_STATUSES])))
     .for('update')
-  return { camera, open: open as OrderRow | undefined }
+  return open
+}
+
+/** Locks the camera (serialising work orders per camera) and returns its open order, if any. */
+async function lockOpenOrder(tx: DbOrTx, cameraId: number) {
+  const [camera] = await tx
+    .select({
+      id: cameras.id,
+      assetTag: cameras.assetTag,
+      locationText: cameras.locationText,
+      taskId: cameras.taskId,
+    })
+    .from(cameras)
+    .where(eq(cameras.id, cameraId))
+    .for('update')
+  if (!camera) throw new Error(`check for unknown camera ${cameraId}`)
+  return { camera, open: await lockedOpenOrder(tx, cameraId) }
 }
 
 /** Opens an order for the camera (or returns the open one): priority and due date from its task. */
@@ -81,7 +90,9 @@ export async function openOrder(
       priority: p.priority ?? task.workOrderPriority,
       dueAt: p.dueAt ?? new Date(p.now.getTime() + task.workOrderDueDays * DAY_MS),
       status: 'open',
-      title: p.title ?? `Soft image on ${camera.assetTag}${camera.locationText ? ` (${camera.locationText})` : ''}`,
+      title:
+        p.title ??
+        `Soft image on ${camera.assetTag}${camera.locationText ? ` (${camera.locationText})` : ''}`,
       description: p.description ?? null,
       createdBy: p.createdBy,
       createdAt: p.now,
@@ -106,7 +117,12 @@ async function recheckRequestedAt(tx: DbOrTx, orderId: number): Promise<Date | n
   const [row] = await tx
     .select({ at: workOrderHistory.at })
     .from(workOrderHistory)
-    .where(and(eq(workOrderHistory.workOrderId, orderId), eq(workOrderHistory.toStatus, 'awaiting_recheck')))
+    .where(
+      and(
+        eq(workOrderHistory.workOrderId, orderId),
+        eq(workOrderHistory.toStatus, 'awaiting_recheck'),
+      ),
+    )
     .orderBy(desc(workOrderHistory.id))
     .limit(1)
   return row?.at ?? null
@@ -126,18 +142,28 @@ async function passedSince(tx: DbOrTx, check: RecordedCheck): Promise<boolean> {
   const [row] = await tx
     .select({ id: checks.id })
     .from(checks)
-    .where(and(eq(checks.cameraId, check.cameraId), eq(checks.verdict, 'pass'), gt(checks.capturedAt, check.capturedAt)))
+    .where(
+      and(
+        eq(checks.cameraId, check.cameraId),
+        eq(checks.verdict, 'pass'),
+        gt(checks.capturedAt, check.capturedAt),
+      ),
+    )
     .limit(1)
   return Boolean(row)
 }
 
+/**
+ * Runs inside recordCheck's transaction, which has locked the camera row (checks.ts lockCamera):
+ * that lock serialises this camera's checks and orders, so only the open order is locked here.
+ */
 export async function handleCheckForWorkOrders(
   tx: DbOrTx,
   check: RecordedCheck,
   ctx: HookContext,
 ): Promise<CheckOutcome> {
   const { now } = ctx
-  const { open } = await lockOpenOrder(tx, check.cameraId)
+  const open = await lockedOpenOrder(tx, check.cameraId)
   const why = reasonsText(check.reasons)
 
   if (!open) {
@@ -155,7 +181,8 @@ export async function handleCheckForWorkOrders(
   }
   if (await alreadyRecorded(tx, open.id, check.id)) return { kind: 'none' }
 
-  const requestedAt = open.status === 'awaiting_recheck' ? await recheckRequestedAt(tx, open.id) : null
+  const requestedAt =
+    open.status === 'awaiting_recheck' ? await recheckRequestedAt(tx, open.id) : null
   const isRecheck = requestedAt !== null && check.capturedAt.getTime() >= requestedAt.getTime()
   const notice = { tx, now, publicUrl: ctx.publicUrl }
 
@@ -203,7 +230,11 @@ export async function handleCheckForWorkOrders(
     return { kind: 'returned', workOrderId: open.id }
   }
   // Any other check of a camera with an open order: kept in the order's history.
-  const words = { pass: 'A passing check', marginal: 'A marginal check', fail: 'Another failing check' }
+  const words = {
+    pass: 'A passing check',
+    marginal: 'A marginal check',
+    fail: 'Another failing check',
+  }
   await changeOrder(
     tx,
     open,

@@ -1,14 +1,15 @@
 // Words for work-order statuses, priorities and history entries, as people read them.
 import type { Priority, WorkOrderStatus } from '@shared/schemas/enums'
 import type { WorkOrderHistoryEntry } from '@shared/schemas/workOrders'
+import type { TagLook } from '@/components/common/labelTag'
 
-export const STATUS_LOOK: Record<WorkOrderStatus, { label: string; icon: string; tone: string }> = {
-  open: { label: 'Open', icon: 'warning-o', tone: 'open' },
-  assigned: { label: 'Assigned', icon: 'manager-o', tone: 'assigned' },
-  in_progress: { label: 'In progress', icon: 'setting-o', tone: 'progress' },
-  awaiting_recheck: { label: 'Awaiting re-check', icon: 'eye-o', tone: 'recheck' },
-  closed: { label: 'Closed', icon: 'success', tone: 'closed' },
-  cancelled: { label: 'Cancelled', icon: 'cross', tone: 'cancelled' },
+export const STATUS_LOOK: Record<WorkOrderStatus, TagLook> = {
+  open: { label: 'Open', icon: 'warning-o', tone: 'amber-soft' },
+  assigned: { label: 'Assigned', icon: 'manager-o', tone: 'teal-outline' },
+  in_progress: { label: 'In progress', icon: 'setting-o', tone: 'teal-soft-light-edge' },
+  awaiting_recheck: { label: 'Awaiting re-check', icon: 'eye-o', tone: 'teal-solid' },
+  closed: { label: 'Closed', icon: 'success', tone: 'green-soft' },
+  cancelled: { label: 'Cancelled', icon: 'cross', tone: 'grey-struck' },
 }
 
 export const PRIORITY_LABEL: Record<Priority, string> = {

@@ -46,6 +46,7 @@ export function sampleCamera(id: number, overrides: Partial<Camera> = {}): Camer
     focalLengthMm: 4,
     targetDistanceM: 10,
     baselineCheckId: null,
+    baselineMtf50CyPx: null,
     state: 'ok',
     lastCheckId: null,
     lastCheckAt: null,

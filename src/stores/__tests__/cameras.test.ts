@@ -1,9 +1,10 @@
 import 'fake-indexeddb/auto'
 import { createPinia, setActivePinia } from 'pinia'
 import { beforeEach, describe, expect, it } from 'vitest'
+import type { Camera } from '@shared/schemas/cameras'
 import { http } from '@/api/http'
 import { loadCatalog, saveCatalog } from '@/db/catalogCache'
-import { db } from '@/db/database'
+import { db, META_KEYS } from '@/db/database'
 import { sampleCamera, sampleSite, sampleTask } from '@/db/__tests__/sampleCatalog'
 import { SESSION_STORAGE_KEY } from '../auth'
 import { useCamerasStore } from '../cameras'
@@ -74,6 +75,55 @@ describe('cameras store', () => {
     const cached = await loadCatalog(db)
     expect(cached.cameras).toEqual(store.cameras)
     expect(cached.userId).toBe(4)
+  })
+
+  it("keeps each camera's baseline MTF50 through a refresh, on screen and on the device", async () => {
+    signedInAs(4)
+    // What a sync pull left on the device: camera 1 with its baseline's MTF50.
+    await saveCatalog(
+      db,
+      {
+        sites: [sampleSite(1, 'North Depot')],
+        cameras: [sampleCamera(1, { baselineCheckId: 'b-1', baselineMtf50CyPx: 0.31 })],
+        tasks: [],
+      },
+      4,
+    )
+    serveCatalog([
+      sampleCamera(1, { baselineCheckId: 'b-1', baselineMtf50CyPx: 0.31 }),
+      sampleCamera(2),
+    ])
+    const store = useCamerasStore()
+    await store.load()
+    expect(store.cameraById.get(1)?.baselineMtf50CyPx).toBe(0.31)
+    expect(store.cameraById.get(2)?.baselineMtf50CyPx).toBeNull()
+    expect((await db.cameras.get(1))?.baselineMtf50CyPx).toBe(0.31)
+
+    // Next session, offline: the saved copy still has it.
+    signedInAs(4)
+    http.configure({
+      fetch: (async () => {
+        throw new TypeError('Failed to fetch')
+      }) as typeof fetch,
+    })
+    const later = useCamerasStore()
+    await later.load()
+    expect(later.cameraById.get(1)?.baselineMtf50CyPx).toBe(0.31)
+  })
+
+  it('reads a camera saved before records carried the baseline MTF50 as unknown, not dropped', async () => {
+    signedInAs(4)
+    const { baselineMtf50CyPx: _dropped, ...older } = sampleCamera(3, { baselineCheckId: 'b-3' })
+    await db.cameras.put(older as Camera)
+    await db.meta.put({ key: META_KEYS.catalogUserId, value: '4' })
+    http.configure({
+      fetch: (async () => {
+        throw new TypeError('Failed to fetch')
+      }) as typeof fetch,
+    })
+    const store = useCamerasStore()
+    await store.load()
+    expect(store.cameras.map((c) => [c.id, c.baselineMtf50CyPx])).toEqual([[3, null]])
   })
 
   it('when the server cannot be reached it shows the saved copy, with no error', async () => {

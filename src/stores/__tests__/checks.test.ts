@@ -182,6 +182,17 @@ describe('saved checks per camera', () => {
     expect(await store.baselineFor(sampleCamera(2))).toEqual({ checkId: null, mtf50CyPx: null })
   })
 
+  it('with no history on the device, takes the baseline MTF50 the camera record carries', async () => {
+    serve(() => null)
+    const camera = sampleCamera(1, { baselineCheckId: IDS[0], baselineMtf50CyPx: 0.31 })
+    const store = useChecksStore()
+    await store.loadCamera(1)
+    expect(await store.baselineFor(camera)).toEqual({ checkId: IDS[0], mtf50CyPx: 0.31 })
+    // A newer copy on the device (left by a sync pull) wins over the one on screen.
+    await db.cameras.put({ ...camera, baselineMtf50CyPx: 0.29 })
+    expect(await store.baselineFor(camera)).toEqual({ checkId: IDS[0], mtf50CyPx: 0.29 })
+  })
+
   it('marks a server check as the baseline on the device and queues it for the server', async () => {
     serve((url) =>
       url.startsWith('/api/cameras/1/checks') ? json(serverHistory(1, IDS[0])) : null,

@@ -4,7 +4,15 @@ import { existsSync, readdirSync, statSync } from 'node:fs'
 import { join } from 'node:path'
 import { ROOT } from './root'
 
-const SOURCES = ['src', 'shared', 'public', 'index.html', 'vite.config.ts', 'package.json']
+const SOURCES = [
+  'src',
+  'shared',
+  'public',
+  'index.html',
+  'vite.config.ts',
+  'scripts/vite',
+  'package.json',
+]
 
 function newestMtimeMs(path: string): number {
   if (!existsSync(path)) return 0

@@ -10,7 +10,6 @@ import {
 } from '../../../server/db/schema'
 import { TASK_DEFAULTS } from '../../../server/db/taskDefaults'
 import { recordChanges, SYNC_ENTITIES } from '../../../server/services/sync/changes'
-import type { CheckCreatePayload } from '../../../shared/schemas/checks'
 
 // A small invented fleet for sync tests: the default tasks, one site, one camera model and
 // `cameraCount` cameras, each written to the change feed like the demo loader does.
@@ -91,47 +90,7 @@ export async function createRound(
   return round.id
 }
 
-/** A `check.create` payload as a device would send it (two measured edges by default). */
-export function checkPayload(
-  cameraId: number,
-  overrides: Partial<CheckCreatePayload> = {},
-  measurementCount = 2,
-): CheckCreatePayload {
-  const curve: [number, number][] = []
-  for (let k = 0; k <= 100; k++) {
-    const f = k / 100
-    curve.push([f, Number(Math.exp(-((f / 0.3) ** 2) * Math.LN2).toFixed(4))])
-  }
-  return {
-    id: randomUUID(),
-    cameraId,
-    capturedAt: new Date(Date.now() - 60_000).toISOString(),
-    mode: 'day',
-    verdict: 'pass',
-    reasons: [{ code: 'sharpness', text: 'Median MTF50 0.300 c/p meets the minimum 0.250 c/p.' }],
-    medianMtf50CyPx: 0.3,
-    pixelDensityPxPerM: 320,
-    baselineRatio: null,
-    shareFrame: false,
-    measurements: Array.from({ length: measurementCount }, (_, i) => ({
-      id: randomUUID(),
-      roi: { x: 100 + 150 * i, y: 80, w: 120, h: 120 },
-      orientation: i % 2 ? ('horizontal' as const) : ('vertical' as const),
-      angleDeg: 5.2,
-      mtf50CyPx: 0.3,
-      mtf50pCyPx: 0.3,
-      mtf10CyPx: 0.61,
-      mtfNyquist: 0.12,
-      rise1090Px: 1.9,
-      overshoot: 0,
-      noise: 0.004,
-      psf: { model: 'gaussian' as const, sigmaPx: 0.62, rmsResidual: 0.003 },
-      mtfCurve: curve,
-      warnings: [],
-    })),
-    ...overrides,
-  }
-}
+export { checkPayload } from '../../fixtures/checkPayload'
 
 export function op(kind: string, payload: unknown, id: string = randomUUID()) {
   return { id, kind, payload }

@@ -8,14 +8,13 @@ import type { DbOrTx } from '../../../db/client'
 import {
   cameraModels,
   cameras,
-  checks,
   roundCameras,
   rounds,
   sites,
   tasks,
   workOrders,
 } from '../../../db/schema'
-import { cameraColumns, toCamera } from '../../cameras'
+import { selectCameras, toCamera } from '../../cameras'
 import { toCameraModel, toTask } from '../../catalog'
 import type { AuthUser } from '../../tokens'
 import { selectOrders, toWorkOrder } from '../../workOrders/repository'
@@ -69,29 +68,8 @@ const cameraSource: PullSource<SyncCamera> = {
   entity: SYNC_ENTITIES.camera,
   removedKey: 'cameras',
   async load(db, _user, ids, now) {
-    const rows = await db
-      .select(cameraColumns)
-      .from(cameras)
-      .innerJoin(sites, eq(sites.id, cameras.siteId))
-      .innerJoin(cameraModels, eq(cameraModels.id, cameras.cameraModelId))
-      .innerJoin(tasks, eq(tasks.id, cameras.taskId))
-      .where(byIds(cameras.id, ids))
-      .orderBy(asc(cameras.id))
-    const baselineIds = rows.map((r) => r.camera.baselineCheckId).filter((id) => id !== null)
-    const baselines = new Map<string, number | null>()
-    for (let i = 0; i < baselineIds.length; i += 500) {
-      const found = await db
-        .select({ id: checks.id, mtf50: checks.medianMtf50CyPx })
-        .from(checks)
-        .where(inArray(checks.id, baselineIds.slice(i, i + 500)))
-      for (const b of found) baselines.set(b.id, b.mtf50)
-    }
-    return rows.map((r) => ({
-      ...toCamera(r, now),
-      baselineMtf50CyPx: r.camera.baselineCheckId
-        ? (baselines.get(r.camera.baselineCheckId) ?? null)
-        : null,
-    }))
+    const rows = await selectCameras(db).where(byIds(cameras.id, ids)).orderBy(asc(cameras.id))
+    return rows.map((r) => toCamera(r, now))
   },
 }
 
