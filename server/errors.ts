@@ -2,6 +2,7 @@ import type { ErrorRequestHandler, RequestHandler } from 'express'
 import { ZodError } from 'zod'
 import { ERROR_CODES } from '../shared/schemas/errors'
 import type { ErrorBody } from '../shared/schemas/errors'
+import { isConnectivity } from './db/mysqlErrors'
 
 /** The one error type services throw: a stable code, a sentence for people, an HTTP status. */
 export class AppError extends Error {
@@ -35,35 +36,6 @@ export function zodFieldErrors(err: ZodError): { fields: Record<string, string[]
     ;(fields[key] ??= []).push(issue.message)
   }
   return { fields }
-}
-
-const DB_DOWN_CODES = new Set([
-  'ECONNREFUSED',
-  'ECONNRESET',
-  'ETIMEDOUT',
-  'EHOSTUNREACH',
-  'EPIPE',
-  'PROTOCOL_CONNECTION_LOST',
-  'PROTOCOL_SEQUENCE_TIMEOUT',
-  'ER_CON_COUNT_ERROR',
-  'ER_SERVER_SHUTDOWN',
-  'ER_CONNECTION_KILLED',
-])
-
-/**
- * The database is unreachable or went away mid-request: a known network/shutdown code anywhere in
- * the `cause` chain, or mysql2's `fatal` flag (a connection that died, e.g. a failed rollback on a
- * connection closed by a MariaDB restart: "Can't add new command when connection is in closed state").
- */
-function isDbDown(err: unknown): boolean {
-  let cur: unknown = err
-  for (let depth = 0; cur && typeof cur === 'object' && depth < 5; depth++) {
-    const code = (cur as { code?: unknown }).code
-    if (typeof code === 'string' && DB_DOWN_CODES.has(code)) return true
-    if ((cur as { fatal?: unknown }).fatal === true) return true
-    cur = (cur as { cause?: unknown }).cause
-  }
-  return false
 }
 
 /** Maps anything thrown to a status and a body; never exposes a stack or internal message. */
@@ -120,7 +92,7 @@ export function toErrorResponse(err: unknown): {
       },
     }
   }
-  if (isDbDown(err)) {
+  if (isConnectivity(err)) {
     return {
       status: 503,
       body: {

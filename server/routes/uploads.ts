@@ -80,10 +80,15 @@ export const uploadRoutes = [
     method: 'get',
     path: '/api/attachments/:id/content',
     access: ['inspector', 'supervisor', 'admin'],
-    summary: 'The bytes of one uploaded check image.',
+    summary:
+      'The bytes of one uploaded check image (a region crop or the shared frame): its inspector, supervisors and admins.',
     params: attachmentIdParams,
     async handler(ctx) {
       const { mime, bytes } = await ctx.services.attachments.content(userOf(ctx), ctx.params.id)
+      // Only the signed-in user's browser may keep it, and it asks again each time (a 304 when
+      // unchanged), so a withdrawn role or a purged frame is never served from a cache.
+      ctx.res.setHeader('Cache-Control', 'private, no-cache')
+      ctx.res.setHeader('Content-Disposition', 'inline')
       ctx.res.type(mime).send(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength))
     },
   }),

@@ -8,7 +8,7 @@ import { cameraStatusAfterCheck } from './checksCameraStatus'
 import { recordRoundCheck } from './checksRound'
 import { audit } from './sync/audit'
 import { recordChanges, SYNC_ENTITIES } from './sync/changes'
-import { isDuplicateEntry } from './sync/mysqlErrors'
+import { isDuplicateEntry } from '../db/mysqlErrors'
 import { OpRejection } from './sync/registry'
 import type { OpContext, OpOutcome } from './sync/registry'
 

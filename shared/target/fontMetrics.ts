@@ -36,6 +36,7 @@ const EXTRA: Record<string, readonly [number, number, number]> = {
   '“': [0x93, 333, 500],
   '”': [0x94, 333, 500],
   '·': [0xb7, 278, 278],
+  '…': [0x85, 1000, 1000],
 }
 
 /** WinAnsi byte for one character; throws RangeError for characters the fonts here do not cover. */

@@ -5,22 +5,12 @@ import { readFileSync } from 'node:fs'
 import Papa from 'papaparse'
 import type { Download, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import { DEMO_PASSWORD, launchBrowser, signIn, type TestBrowser } from './browser'
+import { launchBrowser, signIn, type TestBrowser } from './browser'
+import { apiAs } from './api'
 
 const baseUrl = inject('baseUrl')
 const SUPERVISOR = 'supervisor@sharpfield.test'
-
-async function apiGet<T>(path: string): Promise<T> {
-  const login = await fetch(`${baseUrl}/api/auth/login`, {
-    method: 'POST',
-    headers: { 'Content-Type': 'application/json' },
-    body: JSON.stringify({ email: SUPERVISOR, password: DEMO_PASSWORD }),
-  })
-  const { token } = (await login.json()) as { token: string }
-  const res = await fetch(`${baseUrl}${path}`, { headers: { Authorization: `Bearer ${token}` } })
-  expect(res.status).toBe(200)
-  return (await res.json()) as T
-}
+const apiGet = <T>(path: string) => apiAs<T>(SUPERVISOR, path)
 
 async function downloaded(
   page: Page,

@@ -5,7 +5,8 @@ import { randomUUID } from 'node:crypto'
 import type { ConsoleMessage } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { checkPayload } from '../fixtures/checkPayload'
-import { DEMO_PASSWORD, launchBrowser, signIn, type TestBrowser } from './browser'
+import { launchBrowser, signIn, type TestBrowser } from './browser'
+import { apiWith, tokenOf } from './api'
 
 const baseUrl = inject('baseUrl')
 const HOSTILE_NOTES =
@@ -19,31 +20,11 @@ afterAll(async () => {
   await browser?.close()
 })
 
-async function tokenOf(email: string): Promise<string> {
-  const res = await fetch(`${baseUrl}/api/auth/login`, {
-    method: 'POST',
-    headers: { 'Content-Type': 'application/json' },
-    body: JSON.stringify({ email, password: DEMO_PASSWORD }),
-  })
-  expect(res.status).toBe(200)
-  return ((await res.json()) as { token: string }).token
-}
-
-async function api<T>(token: string, path: string, body?: unknown): Promise<T> {
-  const res = await fetch(`${baseUrl}${path}`, {
-    method: body ? 'POST' : 'GET',
-    headers: { Authorization: `Bearer ${token}`, 'Content-Type': 'application/json' },
-    body: body ? JSON.stringify(body) : undefined,
-  })
-  expect(res.status).toBe(200)
-  return (await res.json()) as T
-}
-
 describe('script in check notes', () => {
   it('shows as text to the supervisor, runs nothing, and breaks no content policy', async () => {
     const inspector = await tokenOf('inspector@sharpfield.test')
     const supervisor = await tokenOf('supervisor@sharpfield.test')
-    const { items } = await api<{ items: { id: number; lastCheckAt: string | null }[] }>(
+    const { items } = await apiWith<{ items: { id: number; lastCheckAt: string | null }[] }>(
       supervisor,
       '/api/cameras?limit=50',
     )
@@ -53,7 +34,7 @@ describe('script in check notes', () => {
       capturedAt: new Date(Date.parse(camera.lastCheckAt!) - 3600_000).toISOString(),
       notes: HOSTILE_NOTES,
     })
-    const pushed = await api<{ results: { status: string }[] }>(inspector, '/api/sync/push', {
+    const pushed = await apiWith<{ results: { status: string }[] }>(inspector, '/api/sync/push', {
       deviceId: `e2e-notes-${randomUUID().slice(0, 8)}`,
       ops: [{ id: randomUUID(), kind: 'check.create', payload: check }],
     })
@@ -81,7 +62,7 @@ describe('script in check notes', () => {
     const rows = page.locator('[data-test="history-row"]')
     await expect.poll(() => rows.count()).toBeGreaterThan(1)
     // The history lists the newest first; the pushed check is an hour older than the latest.
-    const history = await api<{ checks: { id: string }[] }>(
+    const history = await apiWith<{ checks: { id: string }[] }>(
       supervisor,
       `/api/fleet/cameras/${camera.id}/history`,
     )

@@ -4,25 +4,19 @@ import { mkdtempSync, writeFileSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import { DEMO_PASSWORD, launchBrowser, signIn, type TestBrowser } from './browser'
+import { launchBrowser, signIn, type TestBrowser } from './browser'
+import { apiAs } from './api'
 
 const baseUrl = inject('baseUrl')
 const ADMIN = 'admin@sharpfield.test'
 const dir = mkdtempSync(join(tmpdir(), 'sf-e2e-csv-'))
 
 async function cameraTags(q: string): Promise<string[]> {
-  const login = await fetch(`${baseUrl}/api/auth/login`, {
-    method: 'POST',
-    headers: { 'Content-Type': 'application/json' },
-    body: JSON.stringify({ email: ADMIN, password: DEMO_PASSWORD }),
-  })
-  const { token } = (await login.json()) as { token: string }
-  const res = await fetch(`${baseUrl}/api/cameras?q=${encodeURIComponent(q)}&limit=500`, {
-    headers: { Authorization: `Bearer ${token}` },
-  })
-  return ((await res.json()) as { items: { assetTag: string }[] }).items
-    .map((c) => c.assetTag)
-    .sort()
+  const list = await apiAs<{ items: { assetTag: string }[] }>(
+    ADMIN,
+    `/api/cameras?q=${encodeURIComponent(q)}&limit=500`,
+  )
+  return list.items.map((c) => c.assetTag).sort()
 }
 
 function csvFile(name: string, rows: string[]): string {

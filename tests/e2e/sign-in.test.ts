@@ -9,21 +9,9 @@ import {
   DEMO_PASSWORD,
   type TestBrowser,
 } from './browser'
+import { apiAs } from './api'
 
 const baseUrl = inject('baseUrl')
-
-/** The server's own answer, fetched directly, to compare the screens with. */
-async function apiAs(email: string, path: string): Promise<unknown> {
-  const login = await fetch(`${baseUrl}/api/auth/login`, {
-    method: 'POST',
-    headers: { 'Content-Type': 'application/json' },
-    body: JSON.stringify({ email, password: DEMO_PASSWORD }),
-  })
-  const { token } = (await login.json()) as { token: string }
-  const res = await fetch(`${baseUrl}${path}`, { headers: { Authorization: `Bearer ${token}` } })
-  expect(res.status).toBe(200)
-  return res.json()
-}
 
 let browser: TestBrowser
 beforeAll(async () => {
@@ -107,7 +95,10 @@ describe('signing in', () => {
       }
       if (role === 'maintenance') {
         // "My work orders": exactly the ones the server has assigned to this user.
-        const mine = (await apiAs('maintenance@sharpfield.test', '/api/work-orders?status=active')) as { total: number }
+        const mine = (await apiAs(
+          'maintenance@sharpfield.test',
+          '/api/work-orders?status=active',
+        )) as { total: number }
         await expect
           .poll(() => page.locator('[data-test="wo-count"]').innerText())
           .toMatch(new RegExp(`^${mine.total} orders?`))

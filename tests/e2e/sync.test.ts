@@ -9,6 +9,7 @@ import { toGreyImage } from '../../shared/analysis/image/luminance'
 import { measureEdge } from '../../shared/analysis/mtf/measureEdge'
 import { encodePngGrey, renderEdgeCodes } from '../fixtures/edges/render'
 import { launchBrowser, signIn, waitForServiceWorker, type TestBrowser } from './browser'
+import { apiWith } from './api'
 import { bundleForPage } from './harness/bundle'
 
 const baseUrl = inject('baseUrl')
@@ -20,12 +21,6 @@ beforeAll(async () => {
 afterAll(async () => {
   await browser?.close()
 })
-
-async function api<T>(token: string, path: string): Promise<T> {
-  const res = await fetch(`${baseUrl}${path}`, { headers: { Authorization: `Bearer ${token}` } })
-  expect(res.status).toBe(200)
-  return (await res.json()) as T
-}
 
 /** A 120 × 120 crop of a slanted edge (Gaussian σ = 1 px, 5°) and the engine's MTF50 of it. */
 function regionCrop() {
@@ -58,7 +53,7 @@ describe('sync', () => {
       () =>
         (JSON.parse(localStorage.getItem('sharpfield.session') ?? '{}') as { token: string }).token,
     )
-    const list = await api<{ items: { id: number; assetTag: string }[] }>(
+    const list = await apiWith<{ items: { id: number; assetTag: string }[] }>(
       token,
       '/api/cameras?limit=1',
     )
@@ -145,7 +140,7 @@ describe('sync', () => {
     await expect.poll(() => page.locator('[data-test="sync-pending-count"]').innerText()).toBe('1')
     expect(await page.locator('[data-test="outbox-item"]').innerText()).toContain(camera.assetTag)
     await browser.screenshot('sync-offline-queued')
-    const onServerBefore = await api<{ checks: { id: string }[] }>(
+    const onServerBefore = await apiWith<{ checks: { id: string }[] }>(
       token,
       `/api/cameras/${camera.id}/checks?limit=500`,
     )
@@ -159,7 +154,7 @@ describe('sync', () => {
       .poll(
         async () =>
           (
-            await api<{ checks: { id: string }[] }>(
+            await apiWith<{ checks: { id: string }[] }>(
               token,
               `/api/cameras/${camera.id}/checks?limit=500`,
             )
@@ -173,14 +168,14 @@ describe('sync', () => {
     await expect
       .poll(
         async () =>
-          (await api<{ items: unknown[] }>(token, `/api/checks/${checkId}/attachments`)).items
+          (await apiWith<{ items: unknown[] }>(token, `/api/checks/${checkId}/attachments`)).items
             .length,
         {
           timeout: 30_000,
         },
       )
       .toBe(1)
-    const files = await api<{ items: { kind: string; width: number; sha256: string }[] }>(
+    const files = await apiWith<{ items: { kind: string; width: number; sha256: string }[] }>(
       token,
       `/api/checks/${checkId}/attachments`,
     )

@@ -5,60 +5,32 @@
 import { randomUUID } from 'node:crypto'
 import type { Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import { DEMO_PASSWORD, launchBrowser, signIn, type TestBrowser } from './browser'
+import { launchBrowser, signIn, type TestBrowser } from './browser'
+import { checkPayload } from '../fixtures/checkPayload'
+import { apiAs, apiWith, tokenOf } from './api'
 
 const baseUrl = inject('baseUrl')
 
-async function tokenOf(email: string): Promise<string> {
-  const res = await fetch(`${baseUrl}/api/auth/login`, {
-    method: 'POST',
-    headers: { 'Content-Type': 'application/json' },
-    body: JSON.stringify({ email, password: DEMO_PASSWORD }),
-  })
-  expect(res.status).toBe(200)
-  return ((await res.json()) as { token: string }).token
-}
-
-async function apiGet<T>(email: string, path: string): Promise<T> {
-  const res = await fetch(`${baseUrl}${path}`, { headers: { Authorization: `Bearer ${await tokenOf(email)}` } })
-  expect(res.status).toBe(200)
-  return (await res.json()) as T
-}
-
-/** Sends a check the way the inspector's phone syncs it. */
+/** Sends a check the way the inspector's phone syncs it (no measured edges: the verdict counts). */
 async function pushCheck(cameraId: number, verdict: 'pass' | 'fail'): Promise<string> {
-  const id = randomUUID()
-  const res = await fetch(`${baseUrl}/api/sync/push`, {
-    method: 'POST',
-    headers: { 'Content-Type': 'application/json', Authorization: `Bearer ${await tokenOf('inspector@sharpfield.test')}` },
-    body: JSON.stringify({
-      deviceId: 'e2e-phone',
-      ops: [
-        {
-          id: randomUUID(),
-          kind: 'check.create',
-          payload: {
-            id,
-            cameraId,
-            capturedAt: new Date().toISOString(),
-            mode: 'day',
-            verdict,
-            reasons: [
-              verdict === 'pass'
-                ? { code: 'sharp', text: 'MTF50 0.33 cy/px meets the minimum of 0.25.' }
-                : { code: 'soft', text: 'MTF50 0.11 cy/px is below the minimum of 0.25.' },
-            ],
-            medianMtf50CyPx: verdict === 'pass' ? 0.33 : 0.11,
-            measurements: [],
-          },
-        },
-      ],
-    }),
+  const check = checkPayload(cameraId, {
+    capturedAt: new Date().toISOString(),
+    verdict,
+    reasons: [
+      verdict === 'pass'
+        ? { code: 'sharp', text: 'MTF50 0.33 cy/px meets the minimum of 0.25.' }
+        : { code: 'soft', text: 'MTF50 0.11 cy/px is below the minimum of 0.25.' },
+    ],
+    medianMtf50CyPx: verdict === 'pass' ? 0.33 : 0.11,
+    measurements: [],
   })
-  const body = (await res.json()) as { results: { status: string }[] }
-  expect(res.status).toBe(200)
+  const body = await apiWith<{ results: { status: string }[] }>(
+    await tokenOf('inspector@sharpfield.test'),
+    '/api/sync/push',
+    { deviceId: 'e2e-phone', ops: [{ id: randomUUID(), kind: 'check.create', payload: check }] },
+  )
   expect(body.results[0].status).toBe('applied')
-  return id
+  return check.id
 }
 
 async function signInAs(page: Page, email: string, home: string): Promise<void> {
@@ -96,15 +68,18 @@ describe('work orders end to end', () => {
   it('failing check → assign → reassign → mails → re-check asked → passing re-check closes it', async () => {
     const { page } = browser
     // A camera with no open order gets a failing check.
-    const cams = await apiGet<{ items: { id: number; assetTag: string; active: boolean }[] }>(
+    const cams = await apiAs<{ items: { id: number; assetTag: string; active: boolean }[] }>(
       'supervisor@sharpfield.test',
       '/api/cameras?limit=500',
     )
-    const open = await apiGet<{ items: { cameraId: number }[] }>('supervisor@sharpfield.test', '/api/work-orders?status=active&limit=500')
+    const open = await apiAs<{ items: { cameraId: number }[] }>(
+      'supervisor@sharpfield.test',
+      '/api/work-orders?status=active&limit=500',
+    )
     const camera = cams.items.find((c) => c.active && !open.items.some((o) => o.cameraId === c.id))!
     expect(camera).toBeDefined()
     await pushCheck(camera.id, 'fail')
-    const opened = await apiGet<{ items: { id: number; status: string }[] }>(
+    const opened = await apiAs<{ items: { id: number; status: string }[] }>(
       'supervisor@sharpfield.test',
       `/api/work-orders?cameraId=${camera.id}&status=active`,
     )
@@ -124,7 +99,9 @@ describe('work orders end to end', () => {
     await page.locator('[data-test="wo-action-assign"]').click()
     await sheet(page).getByText('Declan Moss').click()
     await sheet(page).locator('[data-test="wo-sheet-submit"]').click()
-    await expect.poll(() => page.locator('[data-test="wo-assignee"]').innerText()).toContain('Declan Moss')
+    await expect
+      .poll(() => page.locator('[data-test="wo-assignee"]').innerText())
+      .toContain('Declan Moss')
     await expect.poll(() => statusText(page)).toContain('Assigned')
 
     // …then reassigns it to Aiko: a reason is required.
@@ -132,12 +109,16 @@ describe('work orders end to end', () => {
     await sheet(page).getByText('Aiko Berg').click()
     await sheet(page).locator('[data-test="wo-sheet-submit"]').click()
     await expect.poll(() => sheet(page).getByRole('alert').innerText()).toContain('Give a reason')
-    await sheet(page).locator('[data-test="wo-reason"] textarea').fill('Declan is on the gate job this week.')
+    await sheet(page)
+      .locator('[data-test="wo-reason"] textarea')
+      .fill('Declan is on the gate job this week.')
     await sheet(page).locator('[data-test="wo-sheet-submit"]').click()
-    await expect.poll(() => page.locator('[data-test="wo-assignee"]').innerText()).toContain('Aiko Berg')
-    await expect.poll(() => page.locator('[data-test="wo-history"]').innerText()).toContain(
-      'moved it from Declan Moss to Aiko Berg',
-    )
+    await expect
+      .poll(() => page.locator('[data-test="wo-assignee"]').innerText())
+      .toContain('Aiko Berg')
+    await expect
+      .poll(() => page.locator('[data-test="wo-history"]').innerText())
+      .toContain('moved it from Declan Moss to Aiko Berg')
     await browser.screenshot('work-order-reassigned')
 
     // The demo Mailbox shows the assignment and the reassignment e-mails.
@@ -156,7 +137,9 @@ describe('work orders end to end', () => {
           `Work order #${orderId} moved to Aiko Berg`,
         ]),
       )
-    const reassignedMail = page.locator('[data-test="mailbox-item"]', { hasText: `Work order #${orderId} reassigned to you` })
+    const reassignedMail = page.locator('[data-test="mailbox-item"]', {
+      hasText: `Work order #${orderId} reassigned to you`,
+    })
     await reassignedMail.locator('.van-collapse-item__title').click()
     await expect
       .poll(() => reassignedMail.locator('[data-test="mailbox-text"]').innerText())
@@ -167,12 +150,16 @@ describe('work orders end to end', () => {
     await signInAs(page, 'maintenance2@sharpfield.test', '/work-orders')
     await page.locator('[data-test="wo-row"]', { hasText: `#${orderId}` }).click()
     await page.waitForURL(`${baseUrl}/work-orders/${orderId}`)
-    expect(await page.locator('[data-test="wo-safety"]').innerText()).toContain('isolate the supply')
+    expect(await page.locator('[data-test="wo-safety"]').innerText()).toContain(
+      'isolate the supply',
+    )
     expect(await page.locator('[data-test="wo-action-reassign"]').count()).toBe(0)
     await page.locator('[data-test="wo-action-start"]').click()
     await expect.poll(() => statusText(page)).toContain('In progress')
     await page.locator('[data-test="wo-action-request_recheck"]').click()
-    await sheet(page).locator('[data-test="wo-note"] textarea').fill('Refocused with the iris open; dome cleaned.')
+    await sheet(page)
+      .locator('[data-test="wo-note"] textarea')
+      .fill('Refocused with the iris open; dome cleaned.')
     await sheet(page).locator('[data-test="wo-sheet-submit"]').click()
     await expect.poll(() => statusText(page)).toContain('Awaiting re-check')
     await browser.screenshot('work-order-maintenance-done')

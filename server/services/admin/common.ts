@@ -2,7 +2,7 @@
 // before/after detail of an audit entry, and stale-version refusals.
 import { ERROR_CODES } from '../../../shared/schemas/errors'
 import { AppError } from '../../errors'
-import { isDuplicateEntry } from '../sync/mysqlErrors'
+import { isDuplicateEntry } from '../../db/mysqlErrors'
 
 export const SETUP_ERRORS = {
   notFound: 'setup.not_found',

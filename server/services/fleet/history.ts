@@ -1,10 +1,11 @@
 // A camera's history (the trend chart: MTF50 over time with its threshold and baseline) and one
 // check with everything it recorded (the MTF curves of its edges).
-import { asc, desc, eq } from 'drizzle-orm'
+import { asc, eq } from 'drizzle-orm'
 import type { CameraHistory, CheckDetail } from '../../../shared/schemas/fleet'
 import type { Db } from '../../db/client'
 import { cameraModels, cameras, checks, measurements, sites, tasks, users } from '../../db/schema'
 import { AppError } from '../../errors'
+import { checksPage } from '../cameraChecks'
 import { rowsByIds } from './cameraTable'
 import { FLEET_ERRORS, iso } from './scope'
 
@@ -29,31 +30,7 @@ export async function cameraHistory(
     .from(cameras)
     .innerJoin(tasks, eq(tasks.id, cameras.taskId))
     .where(eq(cameras.id, cameraId))
-  const list = await db
-    .select({
-      id: checks.id,
-      capturedAt: checks.capturedAt,
-      mode: checks.mode,
-      verdict: checks.verdict,
-      medianMtf50CyPx: checks.medianMtf50CyPx,
-      pixelDensityPxPerM: checks.pixelDensityPxPerM,
-      baselineRatio: checks.baselineRatio,
-      isBaseline: checks.isBaseline,
-      inspectorName: users.name,
-    })
-    .from(checks)
-    .innerJoin(users, eq(users.id, checks.inspectorId))
-    .where(eq(checks.cameraId, cameraId))
-    .orderBy(desc(checks.capturedAt), desc(checks.id))
-    .limit(limit + 1)
-  let baseline: CameraHistory['baseline'] = null
-  if (extra.baselineCheckId) {
-    const [b] = await db
-      .select({ mtf: checks.medianMtf50CyPx })
-      .from(checks)
-      .where(eq(checks.id, extra.baselineCheckId))
-    baseline = { checkId: extra.baselineCheckId, mtf50CyPx: b?.mtf ?? null }
-  }
+  const page = await checksPage(db, cameraId, extra.baselineCheckId, limit)
   return {
     camera: {
       ...row,
@@ -61,9 +38,7 @@ export async function cameraHistory(
       checkIntervalDays: extra.checkIntervalDays ?? extra.taskInterval,
       marginalBand: extra.marginalBand,
     },
-    baseline,
-    checks: list.slice(0, limit).map((c) => ({ ...c, capturedAt: c.capturedAt.toISOString() })),
-    truncated: list.length > limit,
+    ...page,
   }
 }
 

@@ -6,7 +6,7 @@ import type { Logger } from '../../errors'
 import { AppError } from '../../errors'
 import type { AuthUser } from '../tokens'
 import { audit } from './audit'
-import { isConnectivity, isDataError, isDuplicateEntry, isRetryableTx } from './mysqlErrors'
+import { isConnectivity, isDataError, isDuplicateEntry, isRetryableTx } from '../../db/mysqlErrors'
 import { getOp, OpRejection } from './registry'
 import type { OpContext, OpOutcome } from './registry'
 

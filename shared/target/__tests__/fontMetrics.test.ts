@@ -35,6 +35,7 @@ const EXTRA_NAMES: Record<string, string> = {
   '“': 'quotedblleft',
   '”': 'quotedblright',
   '·': 'periodcentered',
+  '…': 'ellipsis',
 }
 
 describe('Helvetica metrics', () => {

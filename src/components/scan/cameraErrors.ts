@@ -2,15 +2,34 @@
 
 export type CameraProblem = 'unsupported' | 'denied' | 'no-camera' | 'busy' | 'other'
 
-const INSTEAD = 'Type the asset tag in the search instead.'
+/** What the camera list offers when the camera cannot scan (other scanners pass their own). */
+export const TYPE_ASSET_TAG = 'type the asset tag in the search'
+
+const capitalised = (s: string) => s.charAt(0).toUpperCase() + s.slice(1)
+
+/** The message for a camera problem; `fallback` is the other way to go on ("type …"). */
+export function cameraProblemMessage(kind: CameraProblem, fallback = TYPE_ASSET_TAG): string {
+  const instead = `${capitalised(fallback)} instead.`
+  switch (kind) {
+    case 'unsupported':
+      return `This browser cannot open the camera here (it needs a secure https connection and camera support). ${instead}`
+    case 'denied':
+      return `Camera access was refused. Allow the camera for Sharpfield in the browser or phone settings and try again, or ${fallback}.`
+    case 'no-camera':
+      return `No camera was found on this device. ${instead}`
+    case 'busy':
+      return 'The camera could not start: another app may be using it. Close that app and try again.'
+    case 'other':
+      return `The camera could not be started. ${instead}`
+  }
+}
 
 export const CAMERA_PROBLEM_MESSAGE: Record<CameraProblem, string> = {
-  unsupported: `This browser cannot open the camera here (it needs a secure https connection and camera support). ${INSTEAD}`,
-  denied:
-    'Camera access was refused. Allow the camera for Sharpfield in the browser or phone settings and try again, or type the asset tag in the search.',
-  'no-camera': `No camera was found on this device. ${INSTEAD}`,
-  busy: 'The camera could not start: another app may be using it. Close that app and try again.',
-  other: `The camera could not be started. ${INSTEAD}`,
+  unsupported: cameraProblemMessage('unsupported'),
+  denied: cameraProblemMessage('denied'),
+  'no-camera': cameraProblemMessage('no-camera'),
+  busy: cameraProblemMessage('busy'),
+  other: cameraProblemMessage('other'),
 }
 
 /** Sorts a getUserMedia failure by its DOMException name (older browsers used other names). */

@@ -2,7 +2,7 @@
 // from the video a few times a second, and always lets the camera go again — on stop, on an
 // error, and when the component that uses it goes away (closing the sheet, leaving the page).
 import { onScopeDispose, ref } from 'vue'
-import { CAMERA_PROBLEM_MESSAGE, cameraProblemOf, type CameraProblem } from './cameraErrors'
+import { cameraProblemMessage, cameraProblemOf, type CameraProblem } from './cameraErrors'
 import { createQrDecoder, type QrDecoder } from './qrDecoder'
 
 export type ScannerState = 'idle' | 'starting' | 'scanning' | 'failed'
@@ -21,7 +21,12 @@ export function cameraAvailable(): boolean {
   )
 }
 
-export function useLabelScanner() {
+export interface ScannerOptions {
+  /** The other way to go on when the camera fails, e.g. "type the target id" (default: asset tag). */
+  fallback?: string
+}
+
+export function useLabelScanner(options: ScannerOptions = {}) {
   const state = ref<ScannerState>('idle')
   const problem = ref<CameraProblem | null>(null)
   const error = ref<string | null>(null)
@@ -35,7 +40,7 @@ export function useLabelScanner() {
 
   function fail(kind: CameraProblem): void {
     problem.value = kind
-    error.value = CAMERA_PROBLEM_MESSAGE[kind]
+    error.value = cameraProblemMessage(kind, options.fallback)
     state.value = 'failed'
   }
 

@@ -1,13 +1,23 @@
 // Where the restoration preview of a saved check gets its pixels: the PNG crop of the
 // representative region kept on the device (lossless, the same pixels the analysis used), or
-// the original frame when that crop is missing. A check made on another device has neither.
-import type { EdgeMeasurement, Roi } from '@shared/analysis'
+// the original frame when that crop is missing. A check made on another device has neither
+// (a supervisor's screen fetches the region crop the inspector uploaded instead: `upload`).
+import type { PsfModel, Roi } from '@shared/analysis'
 import type { CheckBundle } from '@/db/checkRecords'
 import type { RestorationRequest } from '@/workers/types'
 
+/**
+ * What a restoration needs of a measured edge: the fitted kernel and the flat-area noise. Both
+ * the engine's EdgeMeasurement and a measurement read back from the server have this shape.
+ */
+export interface RestorationKernel {
+  psf: { model: PsfModel; sigmaPx?: number | null; radiusPx?: number | null }
+  noise: number | null
+}
+
 /** The worker request for one measured edge: its kernel and noise, the given pixels. */
 export function restorationRequestOf(
-  m: EdgeMeasurement,
+  m: RestorationKernel,
   roi: Roi,
   method: RestorationRequest['method'],
 ): RestorationRequest {
@@ -16,17 +26,17 @@ export function restorationRequestOf(
     model: m.psf.model,
     sizePx: (m.psf.model === 'gaussian' ? m.psf.sigmaPx : m.psf.radiusPx) ?? 1,
     method,
-    noiseSigma: m.noise > 0 ? m.noise : undefined,
+    noiseSigma: m.noise !== null && m.noise > 0 ? m.noise : undefined,
   }
 }
 
 export type RestorationSource =
   | {
       available: true
-      from: 'crop' | 'frame'
-      /** The image to load into the worker. */
-      image: Blob
-      measurement: EdgeMeasurement
+      from: 'crop' | 'frame' | 'upload'
+      /** The image to load into the worker, or how to fetch it (asked once, when first needed). */
+      image: Blob | (() => Promise<Blob>)
+      measurement: RestorationKernel
       /** The region within `image`. */
       roi: Roi
     }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { CAMERA_PROBLEM_MESSAGE, cameraProblemOf } from '../cameraErrors'
+import { CAMERA_PROBLEM_MESSAGE, cameraProblemMessage, cameraProblemOf } from '../cameraErrors'
 
 const domError = (name: string) => new DOMException('from the browser', name)
 
@@ -22,6 +22,19 @@ describe('a camera that does not start', () => {
     expect(CAMERA_PROBLEM_MESSAGE['no-camera']).toMatch(/No camera was found/)
     for (const kind of ['unsupported', 'denied', 'no-camera', 'other'] as const) {
       expect(CAMERA_PROBLEM_MESSAGE[kind]).toMatch(/type the asset tag in the search/i)
+    }
+  })
+
+  it('offers the way on that fits where the scanner is used', () => {
+    const fallback = 'type the target id and sheet width'
+    expect(cameraProblemMessage('denied', fallback)).toMatch(
+      /try again, or type the target id and sheet width\.$/,
+    )
+    for (const kind of ['unsupported', 'no-camera', 'other'] as const) {
+      expect(cameraProblemMessage(kind, fallback)).toMatch(
+        /Type the target id and sheet width instead\.$/,
+      )
+      expect(cameraProblemMessage(kind, fallback)).not.toMatch(/asset tag/)
     }
   })
 })

@@ -57,10 +57,15 @@ const CONNECTIVITY = new Set([
   'PROTOCOL_SEQUENCE_TIMEOUT',
   'ER_CON_COUNT_ERROR',
   'ER_SERVER_SHUTDOWN',
+  'ER_CONNECTION_KILLED',
   'ER_QUERY_INTERRUPTED',
 ])
 
-/** The database could not be reached or went away mid-query. */
+/**
+ * The database is unreachable or went away mid-request: a known network/shutdown code anywhere in
+ * the `cause` chain, or mysql2's `fatal` flag (a connection that died, e.g. a failed rollback on a
+ * connection closed by a MariaDB restart: "Can't add new command when connection is in closed state").
+ */
 export function isConnectivity(err: unknown): boolean {
   let cur: unknown = err
   for (let depth = 0; cur && typeof cur === 'object' && depth < 5; depth++) {
