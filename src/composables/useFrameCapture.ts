@@ -69,6 +69,7 @@ export function useFrameCapture() {
   const checking = ref(false)
   const accepted = shallowRef<AcceptedFrame | null>(null)
   const stream = shallowRef<MediaStream | null>(null)
+  let liveAttempt = 0
   const liveSupported = liveCameraSupported()
 
   async function accept(file: Blob, name?: string): Promise<AcceptedFrame | null> {
@@ -93,11 +94,17 @@ export function useFrameCapture() {
         'Live preview is not available in this browser: use “Take photo” or “Import file”.'
       return false
     }
+    const attempt = ++liveAttempt
     try {
       const s = await navigator.mediaDevices.getUserMedia({
         video: { facingMode: 'environment', width: { ideal: 3840 }, height: { ideal: 2160 } },
         audio: false,
       })
+      if (attempt !== liveAttempt) {
+        // Stopped while the browser was still opening the camera: let it go at once.
+        s.getTracks().forEach((t) => t.stop())
+        return false
+      }
       stream.value = s
       video.srcObject = s
       await video.play()
@@ -113,6 +120,7 @@ export function useFrameCapture() {
   }
 
   function stopLive(): void {
+    liveAttempt++ // a start still waiting for the camera gives it up when it arrives
     stream.value?.getTracks().forEach((t) => t.stop())
     stream.value = null
   }

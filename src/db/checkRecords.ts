@@ -1,6 +1,7 @@
 // Reading and writing the device's checks (tables in ./checks.ts), and the `check.create`
 // payload a saved check becomes for the server.
 import { checkCreatePayloadSchema, type CheckCreatePayload } from '@shared/schemas/checks'
+import { measurementPayload } from '@shared/schemas/measurementPayload'
 import type { CheckRecord, CropRecord, FrameRecord, MeasurementRecord } from './checks'
 import type { SharpfieldDb } from './database'
 
@@ -56,27 +57,7 @@ export function toCheckCreatePayload(
     notes: combinedNotes(check),
     shareFrame: check.shareFrame,
     ...(cameraVersion ? { cameraVersion } : {}),
-    measurements: used.map(({ id, measurement: m }) => ({
-      id,
-      roi: m.roi,
-      orientation: m.orientation,
-      angleDeg: m.angleDeg,
-      mtf50CyPx: m.mtf50,
-      mtf50pCyPx: m.mtf50p,
-      mtf10CyPx: m.mtf10,
-      mtfNyquist: m.mtfNyquist,
-      rise1090Px: m.rise1090Px,
-      overshoot: m.overshoot,
-      noise: m.noise,
-      psf: {
-        model: m.psf.model,
-        sigmaPx: m.psf.sigmaPx ?? null,
-        radiusPx: m.psf.radiusPx ?? null,
-        rmsResidual: m.psf.rmsResidual,
-      },
-      mtfCurve: m.mtf,
-      warnings: m.warnings,
-    })),
+    measurements: used.map(({ id, measurement }) => measurementPayload(id, measurement)),
   })
 }
 

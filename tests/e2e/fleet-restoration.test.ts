@@ -10,6 +10,7 @@ import type { Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { toGreyImage } from '../../shared/analysis/image/luminance'
 import { measureEdge } from '../../shared/analysis/mtf/measureEdge'
+import { measurementPayload } from '../../shared/schemas/measurementPayload'
 import { checkPayload } from '../fixtures/checkPayload'
 import { encodePngGrey, renderEdgeCodes } from '../fixtures/edges/render'
 import { apiWith, tokenOf } from './api'
@@ -58,27 +59,7 @@ async function pushCheck(inspector: string, camera: { id: number; lastCheckAt: s
     ],
     medianMtf50CyPx: m.mtf50,
     measurements: [
-      {
-        id: randomUUID(),
-        roi: { x: 300, y: 200, w: ROI, h: ROI },
-        orientation: m.orientation,
-        angleDeg: m.angleDeg,
-        mtf50CyPx: m.mtf50!,
-        mtf50pCyPx: m.mtf50p,
-        mtf10CyPx: m.mtf10,
-        mtfNyquist: m.mtfNyquist,
-        rise1090Px: m.rise1090Px,
-        overshoot: m.overshoot,
-        noise: m.noise,
-        psf: {
-          model: m.psf.model,
-          sigmaPx: m.psf.sigmaPx ?? null,
-          radiusPx: m.psf.radiusPx ?? null,
-          rmsResidual: m.psf.rmsResidual,
-        },
-        mtfCurve: m.mtf,
-        warnings: m.warnings,
-      },
+      { ...measurementPayload(randomUUID(), m), roi: { x: 300, y: 200, w: ROI, h: ROI } },
     ],
   })
   const pushed = await apiWith<{ results: { status: string }[] }>(inspector, '/api/sync/push', {

@@ -264,7 +264,7 @@ describe('scanning a camera label', () => {
     expect(await phone.page.locator('[data-test="camera-asset-tag"]').innerText()).toBe(DEMO_TAG)
   })
 
-  it('takes a target’s code in the Frame step of a check, and lets the camera go', async () => {
+  it('takes a target’s code in the Frame step of a check, closing the live preview first, and lets the camera go', async () => {
     const target = { id: 'SFT-7K2M9Q', widthMm: 420, heightMm: 594 }
     const browser = await inspectorOffline(encodeTargetPayload(target), [GRANT])
     const { page } = browser
@@ -275,14 +275,20 @@ describe('scanning a camera label', () => {
     await page.locator('[data-test="start-check"]').click()
     await page.getByRole('button', { name: "I'm in a safe position" }).click()
     await page.waitForURL(/\/cameras\/\d+\/check$/)
+    // A running live preview gives the camera up when the scanner opens (phones allow one stream).
+    await page.locator('[data-test="live-preview"]').click()
+    const preview = page.getByLabel('Live camera preview')
+    await preview.waitFor()
     await page.locator('[data-test="scan-target"]').click()
+    await preview.waitFor({ state: 'detached' })
     await page.locator('[data-test="target-scanner"]').waitFor()
     const read = page.locator('[data-test="target-scanned"]')
     await read.waitFor({ timeout: 30_000 })
     expect(await read.innerText()).toBe('Read target SFT-7K2M9Q, printed 420 × 594 mm.')
     expect(await page.getByLabel('Target id').inputValue()).toBe('SFT-7K2M9Q')
     expect(await page.locator('[data-test="target-width"] input').inputValue()).toBe('420')
-    await expect.poll(() => streamState(page)).toEqual([1, 0])
+    // Two streams were opened (the preview's and the scanner's); neither is still running.
+    await expect.poll(() => streamState(page)).toEqual([2, 0])
     await browser.screenshot('scan-8-target-read')
     expect(uncaught).toEqual([])
   })

@@ -1,4 +1,4 @@
-import { describe, expect, it } from 'vitest'
+import { afterEach, describe, expect, it, vi } from 'vitest'
 import { effectScope } from 'vue'
 import { encodePngGrey } from '../../../tests/fixtures/edges/render'
 import { useFrameCapture, validateFrameFile } from '../useFrameCapture'
@@ -39,6 +39,34 @@ describe('choosing a frame file', () => {
     expect(capture.liveSupported).toBe(false)
     expect(await capture.startLive({} as HTMLVideoElement)).toBe(false)
     expect(capture.error.value).toMatch(/use “Take photo” or “Import file”/)
+    scope.stop()
+  })
+})
+
+describe('the live preview', () => {
+  afterEach(() => {
+    vi.unstubAllGlobals()
+  })
+
+  it('lets the camera go when stopped while the browser was still opening it', async () => {
+    // A phone allows one camera stream: a preview closed before its stream arrived (e.g. the code
+    // scanner opening) must not keep that stream running.
+    const stop = vi.fn()
+    let deliver: (s: MediaStream) => void = () => {}
+    const getUserMedia = vi.fn(() => new Promise<MediaStream>((resolve) => (deliver = resolve)))
+    vi.stubGlobal('navigator', { mediaDevices: { getUserMedia } })
+    vi.stubGlobal('window', { isSecureContext: true })
+    const scope = effectScope()
+    const capture = scope.run(() => useFrameCapture())!
+    expect(capture.liveSupported).toBe(true)
+    const video = { srcObject: null, play: vi.fn(async () => {}) } as unknown as HTMLVideoElement
+    const started = capture.startLive(video)
+    capture.stopLive()
+    deliver({ getTracks: () => [{ stop }] } as unknown as MediaStream)
+    expect(await started).toBe(false)
+    expect(stop).toHaveBeenCalledTimes(1)
+    expect(capture.stream.value).toBeNull()
+    expect(video.srcObject).toBeNull()
     scope.stop()
   })
 })
