@@ -1,7 +1,7 @@
 // Failed sign-ins are counted per (account, client address). After `maxFailures` failures within
 // `windowMs`, that pair is refused until the oldest failure leaves the window; other accounts and
-// other addresses are unaffected. The store sits behind an interface so a shared store (e.g. in
-// the database or a cache) can replace the in-memory one when the API runs as several replicas.
+// other addresses are unaffected. The counts live behind a store interface; the app keeps them in
+// MariaDB (loginAttemptsDb.ts) so every server process and replica sees the same failures.
 
 export interface LoginAttemptStore {
   /** Failure times (ms) for the key that are not older than `sinceMs`. */
@@ -46,40 +46,5 @@ export function createLoginLimiter(
     },
     recordFailure: (email, ip) => store.addFailure(keyOf(email, ip), now()),
     recordSuccess: (email, ip) => store.clear(keyOf(email, ip)),
-  }
-}
-
-/** Process-local store; prunes old entries so memory stays bounded. */
-export function createMemoryAttemptStore(
-  windowMs = LOGIN_WINDOW_MS,
-  now: () => number = Date.now,
-): LoginAttemptStore {
-  const map = new Map<string, number[]>()
-  let writes = 0
-  const sweep = () => {
-    const cutoff = now() - windowMs
-    for (const [key, times] of map) {
-      const kept = times.filter((t) => t >= cutoff)
-      if (kept.length) map.set(key, kept)
-      else map.delete(key)
-    }
-  }
-  return {
-    async recent(key, sinceMs) {
-      const times = (map.get(key) ?? []).filter((t) => t >= sinceMs)
-      if (times.length) map.set(key, times)
-      else map.delete(key)
-      return times
-    },
-    async addFailure(key, atMs) {
-      const times = map.get(key) ?? []
-      times.push(atMs)
-      if (times.length > 100) times.splice(0, times.length - 100)
-      map.set(key, times)
-      if (++writes % 1000 === 0) sweep()
-    },
-    async clear(key) {
-      map.delete(key)
-    },
   }
 }

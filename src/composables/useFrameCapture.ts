@@ -2,6 +2,7 @@
 // file input) checked from its header before anything is decoded, or a still from a live
 // preview (getUserMedia) where the browser allows it.
 import { onScopeDispose, ref, shallowRef } from 'vue'
+import { liveCameraSupported } from '@/utils/camera'
 import type { ImageHeader } from '@shared/analysis'
 import {
   checkFrameHeader,
@@ -52,15 +53,6 @@ export async function grabVideoFrame(video: HTMLVideoElement): Promise<Blob> {
       (b) => (b ? resolve(b) : reject(new Error('The still could not be saved.'))),
       'image/png',
     ),
-  )
-}
-
-export function liveCameraSupported(): boolean {
-  return (
-    typeof navigator !== 'undefined' &&
-    typeof navigator.mediaDevices?.getUserMedia === 'function' &&
-    typeof window !== 'undefined' &&
-    window.isSecureContext
   )
 }
 

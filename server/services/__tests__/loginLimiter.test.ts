@@ -1,10 +1,11 @@
 import { describe, expect, it } from 'vitest'
-import { createLoginLimiter, createMemoryAttemptStore } from '../loginLimiter'
+import { createLoginLimiter } from '../loginLimiter'
+import { createMemoryAttemptStore } from './memoryAttemptStore'
 
 function setup() {
   let t = 1_000_000
   const now = () => t
-  const limiter = createLoginLimiter(createMemoryAttemptStore(15 * 60_000, now), { now })
+  const limiter = createLoginLimiter(createMemoryAttemptStore(), { now })
   return { limiter, advance: (ms: number) => (t += ms) }
 }
 

@@ -2,6 +2,7 @@
 // from the video a few times a second, and always lets the camera go again — on stop, on an
 // error, and when the component that uses it goes away (closing the sheet, leaving the page).
 import { onScopeDispose, ref } from 'vue'
+import { liveCameraSupported } from '@/utils/camera'
 import { cameraProblemMessage, cameraProblemOf, type CameraProblem } from './cameraErrors'
 import { createQrDecoder, type QrDecoder } from './qrDecoder'
 
@@ -12,14 +13,6 @@ export const SCAN_INTERVAL_MS = 160
 
 /** Return true to stop scanning (the code was the one wanted). */
 export type CodeHandler = (text: string) => boolean
-
-export function cameraAvailable(): boolean {
-  return (
-    typeof navigator !== 'undefined' &&
-    typeof navigator.mediaDevices?.getUserMedia === 'function' &&
-    window.isSecureContext
-  )
-}
 
 export interface ScannerOptions {
   /** The other way to go on when the camera fails, e.g. "type the target id" (default: asset tag). */
@@ -68,7 +61,7 @@ export function useLabelScanner(options: ScannerOptions = {}) {
     const mine = ++session
     problem.value = null
     error.value = null
-    if (!cameraAvailable()) {
+    if (!liveCameraSupported()) {
       fail('unsupported')
       return false
     }
