@@ -1,4 +1,5 @@
-import { hazeEvidence, median } from './haze'
+import { hazeEvidence } from './haze'
+import { median } from './median'
 import { densityReason, driftReason, hazeReason, nightReason, sharpnessReason } from './rules'
 import { TASK_DEFAULTS, thresholdsFor } from './tasks'
 import type {

@@ -1,4 +1,5 @@
 import type { VerdictEdge } from './types'
+import { median } from './median'
 
 /** 10–90 % rise of a Gaussian edge is 2.563103·σ (DOMAIN.md [calc]). */
 const RISE_PER_SIGMA = 2.563103
@@ -56,10 +57,4 @@ export function interpolate(
     if (f0 <= f && f <= f1) return f1 === f0 ? m0 : m0 + ((m1 - m0) * (f - f0)) / (f1 - f0)
   }
   return null
-}
-
-export function median(values: readonly number[]): number {
-  const s = [...values].sort((a, b) => a - b)
-  const n = s.length
-  return n % 2 ? s[(n - 1) / 2] : 0.5 * (s[n / 2 - 1] + s[n / 2])
 }

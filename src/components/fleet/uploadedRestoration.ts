@@ -4,6 +4,7 @@
 // makes from the crop it kept (restorationRequestOf).
 import type { Attachment } from '@/api/attachments'
 import type { CheckDetail } from '@/api/fleet'
+import { nearestToMedian } from '@/components/check/logic/regionRules'
 import type {
   RestorationKernel,
   RestorationSource,
@@ -46,17 +47,7 @@ export function representativeEdge(
   edges: readonly RestorableEdge[],
   medianMtf50CyPx: number | null,
 ): RestorableEdge | null {
-  if (!edges.length) return null
-  let median = medianMtf50CyPx
-  if (median === null) {
-    const v = edges.map((e) => e.mtf50CyPx).sort((a, b) => a - b)
-    const mid = v.length >> 1
-    median = v.length % 2 ? v[mid] : (v[mid - 1] + v[mid]) / 2
-  }
-  const m = median
-  return edges.reduce((best, e) =>
-    Math.abs(e.mtf50CyPx - m) < Math.abs(best.mtf50CyPx - m) ? e : best,
-  )
+  return nearestToMedian(edges, (e) => e.mtf50CyPx, medianMtf50CyPx)
 }
 
 export function uploadedRestoration(

@@ -1,6 +1,7 @@
 // Which measured regions count for the verdict, and their warnings in plain words.
 import {
   EDGE_WARNING_MESSAGES,
+  median,
   type EdgeMeasurement,
   type EdgeOrientation,
   type EdgeWarning,
@@ -104,17 +105,26 @@ export function verdictEdges(regions: readonly RegionState[]): VerdictEdge[] {
     }))
 }
 
+/**
+ * The item whose value is nearest `center` (by default the median of the values), the first on
+ * ties; null for no items. The rule that picks the edge whose kernel stands for a check.
+ */
+export function nearestToMedian<T>(
+  items: readonly T[],
+  valueOf: (item: T) => number,
+  center: number | null = null,
+): T | null {
+  if (!items.length) return null
+  const c = center ?? median(items.map(valueOf))
+  return items.reduce((best, item) =>
+    Math.abs(valueOf(item) - c) < Math.abs(valueOf(best) - c) ? item : best,
+  )
+}
+
 /** The valid enabled region whose MTF50 is nearest the median: its kernel stands for the frame. */
 export function representativeRegion(regions: readonly RegionState[]): RegionState | null {
-  const valid = regions.filter((r) => r.enabled && isValidRegion(r))
-  if (!valid.length) return null
-  const values = valid.map((r) => r.measurement!.mtf50 as number).sort((a, b) => a - b)
-  const mid = values.length >> 1
-  const median = values.length % 2 ? values[mid] : (values[mid - 1] + values[mid]) / 2
-  return valid.reduce((best, r) =>
-    Math.abs((r.measurement!.mtf50 as number) - median) <
-    Math.abs((best.measurement!.mtf50 as number) - median)
-      ? r
-      : best,
+  return nearestToMedian(
+    regions.filter((r) => r.enabled && isValidRegion(r)),
+    (r) => r.measurement!.mtf50 as number,
   )
 }

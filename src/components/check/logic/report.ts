@@ -6,6 +6,7 @@ import {
   evaluateVerdict,
   focusErrorFromDiskRadius,
   iecLevelsFor,
+  median,
   motionBlurHint,
   TASK_DEFAULTS,
   type EffectiveDensity,
@@ -88,10 +89,7 @@ export function thresholdsOf(ctx: CheckContext): Partial<VerdictThresholds> {
 }
 
 export function medianOf(values: number[]): number | null {
-  if (!values.length) return null
-  const s = [...values].sort((a, b) => a - b)
-  const mid = s.length >> 1
-  return s.length % 2 ? s[mid] : (s[mid - 1] + s[mid]) / 2
+  return values.length ? median(values) : null
 }
 
 /** Refocus distances for a defocus-disk kernel, or why there are none. */
